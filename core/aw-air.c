@@ -113,9 +113,10 @@ aw_conditions_init_standard (AwConditions *c)
 }
 
 AwAirStatus
-aw_air_from_conditions (const AwConditions *c, AwAir *air)
+aw_air_from_conditions (const AwConditions *c, AwAir *out)
 {
   double T, p;
+  AwAir air_buf, *air = &air_buf;   /* *out is written only on success */
 
   if (!isnan (c->temperature_c) && !(c->temperature_c >= -40.0 && c->temperature_c <= 60.0))
     return AW_AIR_BAD_TEMPERATURE;
@@ -134,7 +135,8 @@ aw_air_from_conditions (const AwConditions *c, AwAir *air)
       double T_std;
       if (!(c->altitude_m >= -500.0 && c->altitude_m <= 6000.0))
         return AW_AIR_BAD_ALTITUDE;
-      aw_air_ussa76 (c->altitude_m, 0.0, &T_std, &p, NULL, NULL);
+      if (!aw_air_ussa76 (c->altitude_m, 0.0, &T_std, &p, NULL, NULL))
+        return AW_AIR_BAD_ALTITUDE;
       T = isnan (c->temperature_c) ? T_std : c->temperature_c + AW_T0_K;
     }
 
@@ -158,5 +160,6 @@ aw_air_from_conditions (const AwConditions *c, AwAir *air)
   else
     air->viscosity = aw_air_sutherland_viscosity (T);
 
+  *out = air_buf;
   return AW_AIR_OK;
 }

@@ -473,9 +473,122 @@ aw_flight_run (const AwShot *shot, const AwFlightOptions *opt, AwTrajectory *tra
   return aw_flight_run_full (shot, opt, traj, NULL, NULL);
 }
 
+/* One event found inside a step: parameter θ on the dense output, kind, level. */
+typedef struct
+{
+  double theta;
+  AwEventKind kind;
+  int level;
+} StepEvent;
+
+/* Height crossings and the apex inside [0, θ_end] of the step, sorted by θ. above[] holds for
+ * each level whether z ≥ level at the start of the step and is updated to θ_end. */
+static int
+step_events (const Dense *d, const AwFlightEvents *ev, bool *above, double theta_end,
+             double theta_apex, StepEvent *out)
+{
+  double cuts[3];
+  int n_cuts = 0, n = 0;
+
+  cuts[n_cuts++] = 0.0;
+  /* split at a sign change of vz so that each piece is monotonic in z */
+  {
+    double va = dense_comp (d, VZ, 0.0), vb = dense_comp (d, VZ, theta_end);
+    if (theta_apex > 0.0 && theta_apex < theta_end)
+      cuts[n_cuts++] = theta_apex;
+    else if (va < 0.0 && vb > 0.0)
+      {
+        double th = dense_root (d, VZ, 0.0, 0.0, theta_end);
+        if (th > 0.0 && th < theta_end)
+          cuts[n_cuts++] = th;
+      }
+  }
+  cuts[n_cuts++] = theta_end;
+
+  for (size_t l = 0; l < ev->n_levels; l++)
+    {
+      double lv = ev->levels[l];
+      for (int c = 1; c < n_cuts; c++)
+        {
+          double zb = dense_comp (d, PZ, cuts[c]);
+          bool ab = zb >= lv;
+          if (ab == above[l])
+            continue;
+          double th = dense_root (d, PZ, lv, cuts[c - 1], cuts[c]);
+          out[n].theta = th;
+          out[n].kind = ab ? AW_EVENT_HEIGHT_UP : AW_EVENT_HEIGHT_DOWN;
+          out[n].level = (int) l;
+          n++;
+          above[l] = ab;
+        }
+    }
+  if (ev->apex && theta_apex >= 0.0)
+    {
+      out[n].theta = theta_apex;
+      out[n].kind = AW_EVENT_APEX;
+      out[n].level = -1;
+      n++;
+    }
+  /* insertion sort by θ; at equal θ a crossing up comes before the apex before a crossing down */
+  for (int i = 1; i < n; i++)
+    {
+      StepEvent e = out[i];
+      int j = i - 1;
+      while (j >= 0 && (out[j].theta > e.theta
+                        || (out[j].theta == e.theta && out[j].kind > e.kind)))
+        {
+          out[j + 1] = out[j];
+          j--;
+        }
+      out[j + 1] = e;
+    }
+  return n;
+}
+
+/* Emits the fixed-distance samples of the step up to θ_lim. */
+static bool
+step_samples (const AwShot *shot, AwTrajectory *traj, bool keep, const Dense *d, double x0,
+              double step, double *next_x, double *lo, double theta_lim, AwSampleFunc func,
+              void *user_data, AwFlightStatus *status)
+{
+  double yt[N];
+  if (!(step > 0.0))
+    return true;
+  double x_lim = dense_comp (d, PX, theta_lim);
+  while (*next_x <= x_lim && x0 < *next_x)
+    {
+      double th = dense_root (d, PX, *next_x, *lo, theta_lim);
+      dense_state (d, th, yt);
+      yt[PX] = *next_x;
+      if (!emit (shot, traj, keep, d->t0 + th * d->h, yt, func, user_data, status))
+        return false;
+      *lo = th;
+      *next_x += step;
+    }
+  return true;
+}
+
+static AwFlightStatus
+flight_run (const AwShot *shot, const AwFlightOptions *opt_in, AwTrajectory *traj,
+            AwSampleFunc func, void *user_data, const AwFlightEvents *ev);
+
 AwFlightStatus
 aw_flight_run_full (const AwShot *shot, const AwFlightOptions *opt_in, AwTrajectory *traj,
                     AwSampleFunc func, void *user_data)
+{
+  return flight_run (shot, opt_in, traj, func, user_data, NULL);
+}
+
+AwFlightStatus
+aw_flight_run_events (const AwShot *shot, const AwFlightOptions *opt, AwTrajectory *traj,
+                      AwSampleFunc func, void *user_data, const AwFlightEvents *events)
+{
+  return flight_run (shot, opt, traj, func, user_data, events);
+}
+
+static AwFlightStatus
+flight_run (const AwShot *shot, const AwFlightOptions *opt_in, AwTrajectory *traj,
+            AwSampleFunc func, void *user_data, const AwFlightEvents *ev)
 {
   AwFlightOptions opt;
   RhsConst kc;
@@ -507,8 +620,23 @@ aw_flight_run_full (const AwShot *shot, const AwFlightOptions *opt_in, AwTraject
       || (opt.sample_step_m > 0.0 && opt.sample_step_m < 1e-3))
     return traj->status = AW_FLIGHT_BAD_INPUT;
 
+  bool above[AW_FLIGHT_MAX_LEVELS];
+  if (ev && ev->n_levels > 0)
+    {
+      if (ev->n_levels > AW_FLIGHT_MAX_LEVELS || ev->levels == NULL)
+        return traj->status = AW_FLIGHT_BAD_INPUT;
+      for (size_t l = 0; l < ev->n_levels; l++)
+        if (!isfinite (ev->levels[l]))
+          return traj->status = AW_FLIGHT_BAD_INPUT;
+    }
+  if (ev && ev->func == NULL)
+    ev = NULL;
+
   rhs_const_init (&kc, shot);
   aw_shot_initial_state (shot, y);
+  if (ev)
+    for (size_t l = 0; l < ev->n_levels; l++)
+      above[l] = y[PZ] >= ev->levels[l];
   rhs_eval (&kc, y, k1);
   traj->rhs_evaluations = 1;
   traj->apex_height = y[PZ];
@@ -673,10 +801,13 @@ aw_flight_run_full (const AwShot *shot, const AwFlightOptions *opt_in, AwTraject
         }
 
       /* apex (vz from + to −) inside [0, θ_end] */
+      double theta_apex = -1.0;
+      double apex_h_before = traj->apex_height, apex_x_before = traj->apex_distance;
       if (y[VZ] > 0.0 && dense_comp (&d, VZ, theta_end) <= 0.0)
         {
           double th = dense_root (&d, VZ, 0.0, 0.0, theta_end);
           double zh = dense_comp (&d, PZ, th);
+          theta_apex = th;
           if (zh > traj->apex_height)
             {
               traj->apex_height = zh;
@@ -684,22 +815,46 @@ aw_flight_run_full (const AwShot *shot, const AwFlightOptions *opt_in, AwTraject
             }
         }
 
-      /* fixed-distance samples inside [0, θ_end] */
-      if (step > 0.0)
+      /* fixed-distance samples and events inside [0, θ_end], in order along the step */
+      double lo = 0.0;
+      if (ev)
         {
-          double x_end = dense_comp (&d, PX, theta_end);
-          double lo = 0.0;
-          while (next_x <= x_end && y[PX] < next_x)
+          StepEvent se[2 * AW_FLIGHT_MAX_LEVELS + 1];
+          int n_se = step_events (&d, ev, above, theta_end, theta_apex, se);
+          for (int k = 0; k < n_se; k++)
             {
-              double th = dense_root (&d, PX, next_x, lo, theta_end);
-              dense_state (&d, th, yt);
-              yt[PX] = next_x;
-              if (!emit (shot, traj, keep, t + th * h, yt, func, user_data, &status))
+              AwFlightEvent fe;
+              if (!step_samples (shot, traj, keep, &d, y[PX], step, &next_x, &lo, se[k].theta,
+                                 func, user_data, &status))
                 return traj->status = status;
-              lo = th;
-              next_x += step;
+              dense_state (&d, se[k].theta, yt);
+              if (se[k].kind != AW_EVENT_APEX)
+                yt[PZ] = ev->levels[se[k].level];
+              fe.kind = se[k].kind;
+              fe.level = se[k].level;
+              fill_sample (shot, t + se[k].theta * h, yt, &fe.state);
+              if (!ev->func (&fe, ev->user_data))
+                {
+                  if (theta_apex > se[k].theta)
+                    {
+                      traj->apex_height = apex_h_before;
+                      traj->apex_distance = apex_x_before;
+                    }
+                  if (!all_finite (yt))
+                    return traj->status = AW_FLIGHT_NOT_FINITE;
+                  finish (shot, traj, fe.state.t, yt, keep);
+                  if (yt[PZ] > traj->apex_height)
+                    {
+                      traj->apex_height = yt[PZ];
+                      traj->apex_distance = yt[PX];
+                    }
+                  return traj->status = AW_FLIGHT_STOPPED;
+                }
             }
         }
+      if (!step_samples (shot, traj, keep, &d, y[PX], step, &next_x, &lo, theta_end, func,
+                         user_data, &status))
+        return traj->status = status;
 
       if (ended)
         {

@@ -165,6 +165,46 @@ AwFlightStatus aw_flight_run (const AwShot *shot, const AwFlightOptions *opt, Aw
 AwFlightStatus aw_flight_run_full (const AwShot *shot, const AwFlightOptions *opt,
                                    AwTrajectory *traj, AwSampleFunc func, void *user_data);
 
+/* ---- Events located on the dense output (optional) ---- */
+
+#define AW_FLIGHT_MAX_LEVELS 8
+
+typedef enum
+{
+  AW_EVENT_HEIGHT_UP = 0,    /* z reaches one of the requested levels from below */
+  AW_EVENT_HEIGHT_DOWN,      /* z falls below one of the requested levels */
+  AW_EVENT_APEX,             /* a local maximum of z (vz from + to −) */
+} AwEventKind;
+
+typedef struct
+{
+  AwEventKind kind;
+  int level;                 /* index into AwFlightEvents.levels; −1 for the apex */
+  AwSample state;            /* full state at the event */
+} AwFlightEvent;
+
+/* Called for each event in order along the flight; return false to end the flight there
+ * (status AW_FLIGHT_STOPPED, with traj->end and the summary set to the event state). */
+typedef bool (*AwEventFunc) (const AwFlightEvent *event, void *user_data);
+
+typedef struct
+{
+  const double *levels;      /* heights z in m whose crossings are reported; may be NULL */
+  size_t n_levels;           /* at most AW_FLIGHT_MAX_LEVELS */
+  bool apex;                 /* also report local maxima of z */
+  AwEventFunc func;
+  void *user_data;
+} AwFlightEvents;
+
+/* Like aw_flight_run_full, and reports height crossings and apexes located on the dense output
+ * (to the engine's root tolerance, not interpolated between samples). A level counts as
+ * "above" when z ≥ level; each change of that state inside a step (split at the extremum of z
+ * when vz changes sign there) is one event, so a trajectory touching a level from below gives an
+ * up and a down event, and one staying just under it gives none. events may be NULL. */
+AwFlightStatus aw_flight_run_events (const AwShot *shot, const AwFlightOptions *opt,
+                                     AwTrajectory *traj, AwSampleFunc func, void *user_data,
+                                     const AwFlightEvents *events);
+
 /* Interpolate the stored samples at downrange distance x (linear between samples). Returns false
  * when x is outside the sampled range. */
 bool aw_trajectory_at (const AwTrajectory *traj, double x, AwSample *out);
