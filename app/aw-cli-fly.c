@@ -7,7 +7,9 @@
 #include <math.h>
 #include <stdio.h>
 
+#include "aw-analysis.h"
 #include "aw-cli.h"
+#include "aw-project.h"
 #include "aw-units.h"
 
 static void
@@ -30,7 +32,13 @@ print_help (void)
           "  --drag clift|morrison|off|const:CD\n"
           "  --lift default|shs|loth|off|linear:K|trade\n"
           "  --step-m M            sample spacing downrange (default 1)\n"
-          "  --format text|csv|json\n");
+          "  --format text|csv|json\n\n"
+          "  --project FILE --setup NAME\n"
+          "                        fly a setup stored in a project: its BB, muzzle velocity for\n"
+          "                        that BB, height, hop (auto, lift ratio or spin), zero, air\n"
+          "                        and wind; any option above overrides the stored value\n"
+          "                        (--mass-g alone takes the velocity from the replica's\n"
+          "                        energy-versus-mass behaviour)\n");
 }
 
 typedef enum { FMT_TEXT, FMT_CSV, FMT_JSON } Format;
@@ -123,6 +131,165 @@ print_text (const AwShot *shot, const AwTrajectory *tr, double lift_ratio)
     }
 }
 
+/* Air from the setup's conditions with the air options given on the command line laid over
+ * them (the options' own defaults would otherwise replace the stored conditions). */
+static bool
+project_air (const AwProjectConditions *stored, AwCliShotOptions *so, AwShot *shot)
+{
+  if (!(so->seen_temperature || so->seen_pressure || so->seen_altitude || so->seen_humidity
+        || so->seen_density || so->seen_viscosity))
+    return true;
+  if (so->seen_pressure && so->seen_altitude)
+    {
+      aw_cli_error ("fly", "--pressure-hpa and --altitude-m: give only one");
+      return false;
+    }
+  AwConditions c;
+  aw_conditions_init_standard (&c);
+  c.temperature_c = so->seen_temperature ? so->temperature_c : stored->temperature_c;
+  if (so->seen_altitude || (!so->seen_pressure && isnan (stored->pressure_hpa)))
+    {
+      c.pressure_hpa = NAN;
+      c.altitude_m = so->seen_altitude ? so->altitude_m : stored->altitude_m;
+    }
+  else
+    c.pressure_hpa = so->seen_pressure ? so->pressure_hpa : stored->pressure_hpa;
+  c.humidity = (so->seen_humidity ? so->humidity_pct : stored->humidity_pct) / 100.0;
+  c.density = so->seen_density ? so->density : NAN;
+  c.viscosity = so->seen_viscosity ? so->viscosity : NAN;
+  if (aw_air_from_conditions (&c, &shot->air) != AW_AIR_OK)
+    {
+      aw_cli_error ("fly", "the air conditions are out of range");
+      return false;
+    }
+  so->seen_temperature = so->seen_pressure = so->seen_altitude = false;
+  so->seen_humidity = so->seen_density = so->seen_viscosity = false;
+  return true;
+}
+
+/* Builds the shot of a stored setup with the options laid over it. */
+static bool
+project_shot (const char *file, const char *name, AwCliShotOptions *so, AwShot *shot,
+              double *lift_ratio, char **description)
+{
+  AwProject *project = NULL;
+  AwSetup *setup = NULL;
+  AwAnalysisInput in;
+  bool ok = false;
+
+  if (!aw_cli_load_setup (file, name, "fly", &project, &setup))
+    return false;
+
+  AwBridgeStatus bs = aw_setup_to_analysis_input (setup, project, &in);
+  if (bs != AW_BRIDGE_OK)
+    {
+      aw_cli_error ("fly", "%s: setup \"%s\" cannot be flown (%s)", file, name,
+                    aw_bridge_status_name (bs));
+      goto out;
+    }
+
+  AwCliShotOptions rest = *so;
+  if (!project_air (aw_setup_effective_conditions (setup, project), &rest, &in.shot))
+    goto out;
+  if (!aw_cli_shot_options_apply (&rest, &in.shot, lift_ratio, "fly"))
+    goto out;
+  if (so->seen_mass && !(so->seen_velocity_mps || so->seen_velocity_fps || so->seen_energy))
+    {
+      /* a different BB: its velocity from the replica's energy-versus-mass behaviour */
+      AwPowerCurve curve;
+      aw_setup_power_curve (setup, &curve);
+      double v = aw_power_velocity_for_mass (&curve, in.shot.mass_kg);
+      if (!(v > 0.0 && v <= 300.0))
+        {
+          aw_cli_error ("fly", "--mass-g: the replica of setup \"%s\" gives no usable velocity "
+                        "with a %g g BB", name, so->mass_g);
+          goto out;
+        }
+      in.shot.velocity_mps = v;
+      if (isfinite (*lift_ratio))
+        {
+          /* the lift ratio given was converted with the stored velocity: convert again */
+          double w;
+          if (aw_shot_spin_for_lift_ratio (&in.shot, *lift_ratio, &w) == AW_HOP_OK)
+            in.shot.spin_rad_s = w;
+        }
+    }
+
+  const char *hop_text = "";
+  if (!so->seen_spin && !so->seen_lift_ratio)
+    {
+      switch (setup->hop.mode)
+        {
+        case AW_HOP_MODE_LIFT_RATIO:
+          {
+            double w;
+            AwHopStatus hs = aw_shot_spin_for_lift_ratio (&in.shot, setup->hop.value, &w);
+            if (hs != AW_HOP_OK)
+              {
+                aw_cli_error ("fly", "setup \"%s\": the stored lift ratio %g cannot be reached "
+                              "with its lift model at this speed", name, setup->hop.value);
+                goto out;
+              }
+            in.shot.spin_rad_s = w;
+            *lift_ratio = setup->hop.value;
+            hop_text = "stored lift ratio";
+            break;
+          }
+        case AW_HOP_MODE_SPIN:
+          in.shot.spin_rad_s = aw_rpm_to_rad_s (setup->hop.value);
+          hop_text = "stored model spin";
+          break;
+        case AW_HOP_MODE_AUTO:
+        default:
+          {
+            AwBandResult br;
+            AwAnalysisStatus as = aw_auto_hop (&in, &br);
+            if (as < 0 || !isfinite (br.spin_rad_s))
+              {
+                aw_cli_error ("fly", "setup \"%s\": the automatic hop could not be found (%s)",
+                              name, aw_analysis_status_name (as));
+                goto out;
+              }
+            in.shot.spin_rad_s = br.spin_rad_s;
+            *lift_ratio = br.lift_ratio;
+            hop_text = "automatic hop";
+            break;
+          }
+        }
+    }
+  else
+    hop_text = "hop from the command line";
+
+  const char *zero_text = "level bore";
+  if (!so->seen_elevation && isfinite (setup->sighting.zero_distance_m)
+      && setup->sighting.zero_distance_m > 0.0)
+    {
+      double elev;
+      if (aw_zero_elevation (&in, &in.shot, setup->sighting.zero_distance_m, &elev)
+          == AW_ANALYSIS_OK)
+        {
+          in.shot.elevation_rad = elev;
+          zero_text = "bore elevated for the stored zero";
+        }
+      else
+        {
+          aw_cli_error ("fly", "setup \"%s\": no bore elevation reaches the zero at %g m; "
+                        "flying with a level bore", name, setup->sighting.zero_distance_m);
+        }
+    }
+  else if (so->seen_elevation)
+    zero_text = "elevation from the command line";
+
+  *shot = in.shot;
+  *description = g_strdup_printf ("Setup \"%s\" from %s (%s, %s)", setup->name, file, hop_text,
+                                  zero_text);
+  ok = true;
+
+out:
+  aw_project_free (project);
+  return ok;
+}
+
 int
 aw_cli_fly (int argc, char **argv)
 {
@@ -132,6 +299,8 @@ aw_cli_fly (int argc, char **argv)
   AwTrajectory tr = { 0 };
   double step = 1.0, lift_ratio;
   const char *format = "text";
+  const char *project_file = NULL, *setup_name = NULL;
+  g_autofree char *description = NULL;
   bool help = false;
   Format fmt;
   g_autoptr (GArray) args = g_array_new (TRUE, TRUE, sizeof (AwCliArg));
@@ -141,6 +310,10 @@ aw_cli_fly (int argc, char **argv)
   g_array_append_val (args, ((AwCliArg) { "step-m", AW_CLI_ARG_POSITIVE, &step, 0.01, 1000, NULL }));
   g_array_append_val (args, ((AwCliArg) { "format", AW_CLI_ARG_STRING, &format, 0, 0, NULL }));
   g_array_append_val (args, ((AwCliArg) { "help", AW_CLI_ARG_FLAG, &help, 0, 0, NULL }));
+  g_array_append_val (args, ((AwCliArg) { "project", AW_CLI_ARG_STRING, &project_file, 0, 0,
+                                          NULL }));
+  g_array_append_val (args, ((AwCliArg) { "setup", AW_CLI_ARG_STRING, &setup_name, 0, 0,
+                                          NULL }));
 
   if (!aw_cli_parse (argc, argv, 2, (const AwCliArg *) args->data, NULL, "fly"))
     return AW_CLI_EXIT_USAGE;
@@ -155,9 +328,23 @@ aw_cli_fly (int argc, char **argv)
       return AW_CLI_EXIT_USAGE;
     }
 
-  aw_shot_init (&shot);
-  if (!aw_cli_shot_options_apply (&so, &shot, &lift_ratio, "fly"))
-    return AW_CLI_EXIT_USAGE;
+  if ((project_file == NULL) != (setup_name == NULL))
+    {
+      aw_cli_error ("fly", "%s: give --project FILE and --setup NAME together",
+                    project_file ? "--setup" : "--project");
+      return AW_CLI_EXIT_USAGE;
+    }
+  if (project_file != NULL)
+    {
+      if (!project_shot (project_file, setup_name, &so, &shot, &lift_ratio, &description))
+        return AW_CLI_EXIT_USAGE;
+    }
+  else
+    {
+      aw_shot_init (&shot);
+      if (!aw_cli_shot_options_apply (&so, &shot, &lift_ratio, "fly"))
+        return AW_CLI_EXIT_USAGE;
+    }
   if (isnan (lift_ratio))
     lift_ratio = aw_shot_lift_ratio_for_spin (&shot, shot.spin_rad_s);
 
@@ -184,6 +371,8 @@ aw_cli_fly (int argc, char **argv)
       break;
     case FMT_TEXT:
     default:
+      if (description != NULL)
+        printf ("%s\n", description);
       print_text (&shot, &tr, lift_ratio);
       break;
     }
