@@ -22,6 +22,15 @@ typedef struct
 
 static const AwCliCommand commands[] = {
   { "fly", aw_cli_fly, "compute one trajectory and print it" },
+  { "check", aw_cli_check, "validate a project file and list every problem" },
+  { "sweep", aw_cli_sweep, "vary one or two inputs and print a metric at every point" },
+  { "table", aw_cli_table, "range table and band range of one setup" },
+  { "recommend", aw_cli_recommend, "compare BB masses for one replica and recommend one" },
+#ifdef AW_HAVE_PRINT
+  { "card", aw_cli_print, "write range cards as a PDF" },
+  { "sheet", aw_cli_print, "write customer setup sheets as a PDF" },
+  { "loadout", aw_cli_print, "write a team loadout sheet as a PDF" },
+#endif
   { NULL, NULL, NULL }
 };
 

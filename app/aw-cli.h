@@ -12,6 +12,7 @@
 #include <stdbool.h>
 
 #include "aw-flight.h"
+#include "aw-project.h"
 
 G_BEGIN_DECLS
 
@@ -82,5 +83,18 @@ char *aw_cli_num (char *buf, size_t len, double v, int digits);
 
 /* Subcommands. */
 int aw_cli_fly (int argc, char **argv);
+int aw_cli_check (int argc, char **argv);
+/* card, sheet and loadout (built with the GUI: AW_HAVE_PRINT) */
+int aw_cli_print (int argc, char **argv);
+
+/* Loads FILE (lenient: other bad setups do not matter) and finds the setup by name. On failure
+ * prints clear lines on stderr ("arcwright-cli COMMAND: …", the problems of that setup, or the
+ * names available) and returns false: the caller exits with AW_CLI_EXIT_USAGE. On success the
+ * caller owns *project (free with aw_project_free); *setup points into it. */
+bool aw_cli_load_setup (const char *file, const char *setup_name, const char *command,
+                        AwProject **project, AwSetup **setup);
+int aw_cli_sweep (int argc, char **argv);
+int aw_cli_table (int argc, char **argv);
+int aw_cli_recommend (int argc, char **argv);
 
 G_END_DECLS

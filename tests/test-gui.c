@@ -1,0 +1,751 @@
+/* test-gui.c: the workbench window on the demo project — list, editor, live results, plot,
+ * undo, rendering, saving and the German translation
+ *
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * Runs under a private X server (xvfb-run) with GSK_RENDERER=cairo, GSETTINGS_BACKEND=memory,
+ * GSETTINGS_SCHEMA_DIR at the compiled schema and AW_LOCALEDIR at the compiled translations.
+ * "/gui/german/..." is run by a second meson test with LANGUAGE=de and LC_ALL=de_DE.UTF-8.
+ */
+#include "aw-config.h"
+
+#include <glib/gi18n.h>
+#include <glib/gstdio.h>
+#include <gtk/gtk.h>
+#include <locale.h>
+#include <math.h>
+#include <string.h>
+
+#include "aw-document.h"
+#include "aw-format.h"
+#include "aw-number-field.h"
+#include "aw-plot-view.h"
+#include "aw-project-io.h"
+#include "aw-range-view.h"
+#include "aw-setup-editor.h"
+#include "aw-setup-row.h"
+#include "aw-window.h"
+
+#define IDLE_TIMEOUT_S 60
+
+static GSettings *settings;
+
+static char *
+demo_path (void)
+{
+  const char *dir = g_getenv ("AW_DATADIR");
+
+  if (dir != NULL)
+    return g_build_filename (dir, "demo.arcw", NULL);
+  return g_test_build_filename (G_TEST_DIST, "..", "data", "demo.arcw", NULL);
+}
+
+/* Runs the main loop until the window has no pending work and every setup has a result. */
+static void
+wait_idle (AwWindow *window)
+{
+  gint64 end = g_get_monotonic_time () + IDLE_TIMEOUT_S * G_USEC_PER_SEC;
+  const AwProject *p;
+
+  for (;;)
+    {
+      gboolean all = TRUE;
+
+      while (g_main_context_iteration (NULL, FALSE))
+        ;
+      p = aw_document_get_project (aw_window_get_document (window));
+      for (guint i = 0; i < p->setups->len; i++)
+        if (aw_window_get_result (window, i) == NULL)
+          all = FALSE;
+      if (all && aw_window_is_idle (window))
+        break;
+      if (g_get_monotonic_time () > end)
+        g_error ("the window did not finish computing within %d s", IDLE_TIMEOUT_S);
+      g_usleep (2000);
+    }
+  /* let a frame happen */
+  for (int i = 0; i < 20; i++)
+    {
+      while (g_main_context_iteration (NULL, FALSE))
+        ;
+      g_usleep (5000);
+    }
+}
+
+static AwWindow *
+open_demo (void)
+{
+  g_autofree char *path = demo_path ();
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  g_autoptr (GError) error = NULL;
+  AwWindow *window = aw_window_new (NULL, settings);
+
+  gtk_window_set_default_size (GTK_WINDOW (window), 1280, 800);
+  gtk_window_present (GTK_WINDOW (window));
+  g_assert_true (aw_window_load_file (window, file, TRUE, &error));
+  g_assert_no_error (error);
+  wait_idle (window);
+  return window;
+}
+
+static void
+close_window (AwWindow *window)
+{
+  /* drop unsaved edits without asking */
+  aw_document_mark_saved (aw_window_get_document (window));
+  gtk_window_destroy (GTK_WINDOW (window));
+  while (g_main_context_iteration (NULL, FALSE))
+    ;
+}
+
+static const AwSetup *
+setup_at (AwWindow *window,
+          guint     i)
+{
+  const AwProject *p = aw_document_get_project (aw_window_get_document (window));
+  g_assert_cmpuint (i, <, p->setups->len);
+  return g_ptr_array_index (p->setups, i);
+}
+
+static AwNumberField *
+editor_field (AwWindow   *window,
+              const char *id)
+{
+  GtkWidget *w = aw_setup_editor_get_field (AW_SETUP_EDITOR (aw_window_get_editor (window)), id);
+  g_assert_nonnull (w);
+  g_assert_true (AW_IS_NUMBER_FIELD (w));
+  return AW_NUMBER_FIELD (w);
+}
+
+static void
+type_into (AwNumberField *field,
+           const char    *text)
+{
+  GtkEntry *entry = aw_number_field_get_entry (field);
+
+  gtk_widget_grab_focus (GTK_WIDGET (entry));
+  gtk_editable_set_text (GTK_EDITABLE (entry), text);
+}
+
+/* Last x of a setup's series in the plot (where the drawn flight ends). */
+static double
+plot_series_end (AwWindow *window,
+                 guint     i,
+                 size_t   *n_samples)
+{
+  const AwPlotScene *scene = aw_plot_view_get_scene (AW_PLOT_VIEW (aw_window_get_plot (window)));
+
+  g_assert_nonnull (scene);
+  g_assert_cmpuint (i, <, scene->n_series);
+  g_assert_cmpuint (scene->series[i].n_samples, >, 10);
+  if (n_samples)
+    *n_samples = scene->series[i].n_samples;
+  return scene->series[i].samples[scene->series[i].n_samples - 1].x;
+}
+
+/* ---- list ---- */
+
+static void
+test_setups_list (void)
+{
+  AwWindow *window = open_demo ();
+  const AwProject *p = aw_document_get_project (aw_window_get_document (window));
+  GtkListBox *list = aw_window_get_setup_list (window);
+  guint n = 0;
+
+  g_assert_cmpuint (p->setups->len, >=, 2);
+  for (GtkWidget *c = gtk_widget_get_first_child (GTK_WIDGET (list)); c;
+       c = gtk_widget_get_next_sibling (c))
+    if (AW_IS_SETUP_ROW (c))
+      {
+        const AwSetup *s = setup_at (window, n);
+        g_autofree char *mass = aw_qty_format (AW_QTY_MASS_G, AW_UNITS_METRIC, s->bb.mass_g);
+
+        g_assert_cmpstr (aw_setup_row_get_name (AW_SETUP_ROW (c)), ==, s->name);
+        /* the details name the BB mass in grams and the energy in joules */
+        g_assert_nonnull (strstr (aw_setup_row_get_details (AW_SETUP_ROW (c)), mass));
+        g_assert_nonnull (strstr (aw_setup_row_get_details (AW_SETUP_ROW (c)), "J"));
+        n++;
+      }
+  g_assert_cmpuint (n, ==, p->setups->len);
+  g_assert_cmpint (aw_window_get_selected (window), ==, 0);
+
+  /* every setup has a trajectory in the plot */
+  for (guint i = 0; i < p->setups->len; i++)
+    g_assert_cmpfloat (plot_series_end (window, i, NULL), >, 5.0);
+
+  close_window (window);
+}
+
+/* ---- editing, live results, undo ---- */
+
+static void
+test_edit_mass_and_undo (void)
+{
+  AwWindow *window = open_demo ();
+  AwDocument *doc = aw_window_get_document (window);
+  AwNumberField *mass;
+  AwComputeResult *r;
+  double mass_before, band_before, end_before, end_after, v_before;
+  size_t n_before, n_after;
+  g_autoptr (AwProject) before = aw_project_copy (aw_document_get_project (doc));
+
+  aw_window_select (window, 1);
+  wait_idle (window);
+  g_assert_cmpint (aw_window_get_selected (window), ==, 1);
+  mass_before = setup_at (window, 1)->bb.mass_g;
+  r = aw_window_get_result (window, 1);
+  g_assert_nonnull (r);
+  g_assert_cmpint (r->status, ==, AW_ANALYSIS_OK);
+  band_before = r->band.band_range_m;
+  v_before = r->velocity_mps;
+  g_assert_true (r->has_table);
+  end_before = plot_series_end (window, 1, &n_before);
+  g_assert_false (aw_document_can_undo (doc));
+
+  /* a bad value is explained next to the field and not applied */
+  mass = editor_field (window, "mass_field");
+  type_into (mass, "abc");
+  g_assert_false (aw_number_field_is_valid (mass));
+  g_assert_nonnull (aw_number_field_get_error (mass));
+  type_into (mass, "-0.2");
+  g_assert_false (aw_number_field_is_valid (mass));
+  type_into (mass, "7");
+  g_assert_false (aw_number_field_is_valid (mass));
+  g_assert_cmpfloat (setup_at (window, 1)->bb.mass_g, ==, mass_before);
+  g_assert_false (aw_document_can_undo (doc));
+
+  /* a heavier BB: typed the way the locale writes numbers */
+  {
+    g_autofree char *text = aw_format_number (mass_before + 0.12, 2);
+    type_into (mass, text);
+  }
+  g_assert_true (aw_number_field_is_valid (mass));
+  g_assert_cmpfloat_with_epsilon (setup_at (window, 1)->bb.mass_g, mass_before + 0.12, 1e-9);
+  g_assert_true (aw_document_get_modified (doc));
+  wait_idle (window);
+
+  r = aw_window_get_result (window, 1);
+  g_assert_nonnull (r);
+  g_assert_cmpfloat (fabs (r->mass_kg - (mass_before + 0.12) * 1e-3), <, 1e-12);
+  /* the band range and the plotted flight follow the edit */
+  g_assert_cmpfloat (fabs (r->band.band_range_m - band_before), >, 0.05);
+  g_assert_cmpfloat (r->velocity_mps, !=, v_before);
+  end_after = plot_series_end (window, 1, &n_after);
+  g_assert_cmpfloat (fabs (end_after - end_before), >, 0.05);
+
+  /* undo restores the setup, its results and the plot exactly */
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.undo", NULL);
+  g_assert_cmpfloat (setup_at (window, 1)->bb.mass_g, ==, mass_before);
+  g_assert_true (aw_project_equal (aw_document_get_project (doc), before));
+  g_assert_false (aw_document_get_modified (doc));
+  wait_idle (window);
+  r = aw_window_get_result (window, 1);
+  g_assert_cmpfloat (r->band.band_range_m, ==, band_before);
+  g_assert_cmpfloat (plot_series_end (window, 1, &n_after), ==, end_before);
+  g_assert_cmpuint (n_after, ==, n_before);
+  {
+    /* the field shows the restored value */
+    double shown;
+    g_assert_true (aw_parse_number (gtk_editable_get_text (
+                                      GTK_EDITABLE (aw_number_field_get_entry (mass))), &shown));
+    g_assert_cmpfloat_with_epsilon (shown, mass_before, 1e-9);
+  }
+
+  /* redo brings the edit back */
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.redo", NULL);
+  g_assert_cmpfloat_with_epsilon (setup_at (window, 1)->bb.mass_g, mass_before + 0.12, 1e-9);
+
+  close_window (window);
+}
+
+static void
+test_setup_actions (void)
+{
+  AwWindow *window = open_demo ();
+  AwDocument *doc = aw_window_get_document (window);
+  guint n = aw_document_get_project (doc)->setups->len;
+  g_autofree char *first = g_strdup (setup_at (window, 0)->name);
+  g_autofree char *second = g_strdup (setup_at (window, 1)->name);
+
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.duplicate-setup", NULL);
+  g_assert_cmpuint (aw_document_get_project (doc)->setups->len, ==, n + 1);
+  g_assert_cmpint (aw_window_get_selected (window), ==, 1);
+  g_assert_cmpstr (setup_at (window, 1)->name, !=, first);
+  g_assert_cmpfloat (setup_at (window, 1)->bb.mass_g, ==, setup_at (window, 0)->bb.mass_g);
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.delete-setup", NULL);
+  g_assert_cmpuint (aw_document_get_project (doc)->setups->len, ==, n);
+
+  aw_window_select (window, 0);
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.move-down", NULL);
+  g_assert_cmpstr (setup_at (window, 0)->name, ==, second);
+  g_assert_cmpstr (setup_at (window, 1)->name, ==, first);
+  g_assert_cmpint (aw_window_get_selected (window), ==, 1);
+
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.toggle-visible", NULL);
+  g_assert_false (setup_at (window, 1)->visible);
+  wait_idle (window);
+  {
+    const AwPlotScene *scene =
+      aw_plot_view_get_scene (AW_PLOT_VIEW (aw_window_get_plot (window)));
+    g_assert_false (scene->series[1].visible);
+    g_assert_true (scene->series[0].visible);
+  }
+
+  /* four edits, four undos back to the file as loaded */
+  for (int i = 0; i < 4; i++)
+    gtk_widget_activate_action (GTK_WIDGET (window), "win.undo", NULL);
+  g_assert_false (aw_document_can_undo (doc));
+  g_assert_false (aw_document_get_modified (doc));
+  g_assert_cmpstr (setup_at (window, 0)->name, ==, first);
+
+  close_window (window);
+}
+
+/* A setup whose flight cannot be computed is explained, not retried for ever. */
+static void
+test_problem_setup (void)
+{
+  AwWindow *window = open_demo ();
+  AwComputeResult *r;
+  g_autofree char *problem = NULL;
+
+  AwSetupEditor *editor = AW_SETUP_EDITOR (aw_window_get_editor (window));
+  GtkDropDown *lift = GTK_DROP_DOWN (aw_setup_editor_get_field (editor, "lift_dropdown"));
+  GtkDropDown *hop = GTK_DROP_DOWN (aw_setup_editor_get_field (editor, "hop_dropdown"));
+
+  /* no lift at all, and a lift ratio asked for: it cannot be reached */
+  gtk_drop_down_set_selected (lift, AW_LIFT_OFF);
+  gtk_drop_down_set_selected (hop, 1);
+  g_assert_cmpint (setup_at (window, 0)->hop.mode, ==, AW_HOP_MODE_LIFT_RATIO);
+  type_into (editor_field (window, "lift_ratio_field"), "1.5");
+  wait_idle (window);
+  r = aw_window_get_result (window, 0);
+  g_assert_nonnull (r);
+  g_assert_cmpint (r->status, ==, AW_ANALYSIS_HOP_UNREACHABLE);
+  /* the range table says why it is empty */
+  g_assert_cmpuint (aw_range_view_get_n_rows (AW_RANGE_VIEW (aw_window_get_range_view (window))),
+                    ==, 0);
+  problem = aw_compute_result_describe_problem (r);
+  g_assert_nonnull (problem);
+  g_assert_cmpuint (strlen (problem), >, 10);
+  close_window (window);
+}
+
+/* ---- site class and range table ---- */
+
+static void
+test_site_class_and_csv (void)
+{
+  AwWindow *window = open_demo ();
+  const AwProject *p = aw_document_get_project (aw_window_get_document (window));
+  AwRangeView *range = AW_RANGE_VIEW (aw_window_get_range_view (window));
+  const AwPlotScene *scene;
+  g_autofree char *csv = NULL;
+  g_auto (GStrv) lines = NULL;
+  guint pos = 0, k = 0;
+  double med = NAN;
+
+  /* the first class with a minimum engagement distance */
+  for (guint r = 0; r < p->site_rules->len && isnan (med); r++)
+    {
+      const AwSiteRules *rules = g_ptr_array_index (p->site_rules, r);
+      for (guint c = 0; c < rules->classes->len; c++)
+        {
+          const AwSiteClassRule *cls = g_ptr_array_index (rules->classes, c);
+          k++;
+          if (cls->min_engagement_m > 0 && isnan (med))
+            {
+              med = cls->min_engagement_m;
+              pos = k;
+            }
+        }
+    }
+  g_assert_false (isnan (med));
+  aw_window_set_site_class (window, pos);
+  wait_idle (window);
+  scene = aw_plot_view_get_scene (AW_PLOT_VIEW (aw_window_get_plot (window)));
+  g_assert_cmpfloat (scene->min_engagement_m, ==, med);
+  g_assert_false (isnan (scene->band_half_m));
+  g_assert_cmpfloat (scene->band_half_m, ==, setup_at (window, 0)->band_half_height_m);
+
+  g_assert_cmpuint (aw_range_view_get_n_rows (range), >, 3);
+  csv = aw_range_view_dup_csv (range);
+  g_assert_nonnull (csv);
+  lines = g_strsplit (csv, "\r\n", -1);
+  g_assert_cmpuint (g_strv_length (lines), ==, aw_range_view_get_n_rows (range) + 2);
+  g_assert_nonnull (strstr (lines[0], "(m)"));
+  for (guint i = 1; lines[i] && lines[i][0]; i++)
+    {
+      g_auto (GStrv) cells = g_strsplit (lines[i], ",", -1);
+      char *end = NULL;
+      double d;
+
+      g_assert_cmpuint (g_strv_length (cells), ==, 8);
+      d = g_ascii_strtod (cells[0], &end);
+      g_assert_true (end != cells[0] && *end == '\0');
+      /* rows closer than the minimum engagement distance are marked */
+      if (d < med - 1e-9)
+        g_assert_cmpstr (cells[7], ==, "no-shoot");
+      else
+        g_assert_cmpstr (cells[7], !=, "no-shoot");
+      for (guint c = 1; c < 7; c++)
+        if (cells[c][0] != '\0')
+          {
+            g_ascii_strtod (cells[c], &end);
+            g_assert_true (*end == '\0');
+          }
+    }
+  close_window (window);
+}
+
+/* ---- rendering ---- */
+
+static GdkTexture *
+render_window (AwWindow *window)
+{
+  GdkPaintable *paintable = gtk_widget_paintable_new (GTK_WIDGET (window));
+  GtkSnapshot *snapshot = gtk_snapshot_new ();
+  int w = gtk_widget_get_width (GTK_WIDGET (window));
+  int h = gtk_widget_get_height (GTK_WIDGET (window));
+  GskRenderNode *node;
+  GdkTexture *texture;
+  GskRenderer *renderer = gtk_native_get_renderer (GTK_NATIVE (window));
+
+  g_assert_cmpint (w, >, 100);
+  g_assert_cmpint (h, >, 100);
+  gdk_paintable_snapshot (paintable, snapshot, w, h);
+  node = gtk_snapshot_free_to_node (snapshot);
+  g_assert_nonnull (node);
+  texture = gsk_renderer_render_texture (renderer, node, &GRAPHENE_RECT_INIT (0, 0, w, h));
+  gsk_render_node_unref (node);
+  g_object_unref (paintable);
+  return texture;
+}
+
+static void
+check_not_blank (GdkTexture *texture)
+{
+  int w = gdk_texture_get_width (texture), h = gdk_texture_get_height (texture);
+  gsize stride = (gsize) w * 4;
+  g_autofree guchar *px = g_malloc (stride * h);
+  g_autoptr (GHashTable) colours = g_hash_table_new (g_direct_hash, g_direct_equal);
+  guint32 first;
+  gsize differ = 0;
+
+  gdk_texture_download (texture, px, stride);
+  first = *(guint32 *) px;
+  for (int y = 0; y < h; y += 2)
+    for (int x = 0; x < w; x += 2)
+      {
+        guint32 v = *(guint32 *) (px + y * stride + x * 4);
+        g_hash_table_add (colours, GUINT_TO_POINTER (v));
+        if (v != first)
+          differ++;
+      }
+  /* text, lines and shading give many colours; a blank window has one or two */
+  g_assert_cmpuint (g_hash_table_size (colours), >, 200);
+  g_assert_cmpuint (differ, >, (gsize) (w / 2) * (h / 2) / 20);
+}
+
+static void
+test_render_png (void)
+{
+  AwWindow *window = open_demo ();
+  g_autoptr (GdkTexture) texture = NULL;
+  g_autofree char *path = g_test_build_filename (G_TEST_BUILT, "gui-window.png", NULL);
+
+  texture = render_window (window);
+  check_not_blank (texture);
+  g_assert_true (gdk_texture_save_to_png (texture, path));
+  g_test_message ("window rendered to %s", path);
+  close_window (window);
+}
+
+/* ---- saving ---- */
+
+static void
+test_save_reload (void)
+{
+  AwWindow *window = open_demo ();
+  AwDocument *doc = aw_window_get_document (window);
+  g_autofree char *dir = g_dir_make_tmp ("aw-gui-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "saved.arcw", NULL);
+  g_autofree char *backup = aw_project_backup_path (path);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (AwProject) reread = NULL;
+  AwNumberField *band;
+
+  /* edit, save, read back: equal to what the window holds */
+  band = editor_field (window, "band_field");
+  type_into (band, "20");
+  g_assert_cmpfloat_with_epsilon (setup_at (window, 0)->band_half_height_m, 0.20, 1e-12);
+  g_assert_true (aw_window_save_to (window, file, &error));
+  g_assert_no_error (error);
+  g_assert_false (aw_document_get_modified (doc));
+  reread = aw_project_load_file (path, AW_PROJECT_LOAD_STRICT, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (aw_project_equal (reread, aw_document_get_project (doc)));
+
+  /* open it in a second window: the same project */
+  {
+    AwWindow *second = aw_window_new (NULL, settings);
+    g_assert_true (aw_window_load_file (second, file, TRUE, &error));
+    g_assert_true (aw_project_equal (aw_document_get_project (aw_window_get_document (second)),
+                                     aw_document_get_project (doc)));
+    gtk_window_destroy (GTK_WINDOW (second));
+  }
+
+  /* a file that does not parse is refused with an error and the window keeps its project */
+  {
+    g_autofree char *bad = g_build_filename (dir, "broken.arcw", NULL);
+    g_autoptr (GFile) bad_file = g_file_new_for_path (bad);
+    g_autoptr (GError) bad_error = NULL;
+    g_autoptr (AwProject) held = aw_project_copy (aw_document_get_project (doc));
+
+    g_assert_true (g_file_set_contents (bad, "{ \"format\": ", -1, NULL));
+    g_assert_false (aw_window_load_file (window, bad_file, TRUE, &bad_error));
+    g_assert_nonnull (bad_error);
+    g_assert_true (aw_project_equal (held,
+                                     aw_document_get_project (aw_window_get_document (window))));
+    g_remove (bad);
+  }
+
+  g_remove (path);
+  g_remove (backup);
+  g_rmdir (dir);
+  close_window (window);
+}
+
+/* ---- autosave ---- */
+
+static void
+test_autosave (void)
+{
+  AwWindow *window = open_demo ();
+  g_autofree char *dir = aw_autosave_dir ();
+  g_autoptr (GDir) d = NULL;
+  const char *name;
+  guint found = 0;
+
+  type_into (editor_field (window, "muzzle_height_field"), "1");
+  aw_window_autosave_now (window);
+  d = g_dir_open (dir, 0, NULL);
+  g_assert_nonnull (d);
+  while ((name = g_dir_read_name (d)) != NULL)
+    if (g_str_has_suffix (name, ".arcw"))
+      {
+        g_autofree char *path = g_build_filename (dir, name, NULL);
+        g_autoptr (GError) error = NULL;
+        g_autoptr (AwProject) copy = aw_project_load_file (path, AW_PROJECT_LOAD_STRICT, NULL,
+                                                          &error);
+        g_assert_no_error (error);
+        g_assert_true (aw_project_equal (copy, aw_document_get_project (
+                                                 aw_window_get_document (window))));
+        found++;
+      }
+  g_assert_cmpuint (found, ==, 1);
+  g_clear_pointer (&d, g_dir_close);
+
+  /* saving or discarding removes the copy */
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.undo", NULL);
+  g_assert_false (aw_document_get_modified (aw_window_get_document (window)));
+  d = g_dir_open (dir, 0, NULL);
+  found = 0;
+  while (d && (name = g_dir_read_name (d)) != NULL)
+    if (g_str_has_suffix (name, ".arcw"))
+      found++;
+  g_assert_cmpuint (found, ==, 0);
+  close_window (window);
+}
+
+/* ---- pieces ---- */
+
+static void
+test_format_and_parse (void)
+{
+  double v;
+  g_autofree char *ascii = aw_format_ascii (0.1 + 0.2, 0);
+
+  /* 1 fps = 0.3048 m/s exactly (international foot, 1959) */
+  g_assert_cmpfloat_with_epsilon (aw_qty_to_display (AW_QTY_VELOCITY, AW_UNITS_IMPERIAL, 100.0),
+                                  100.0 / 0.3048, 1e-12);
+  g_assert_cmpfloat_with_epsilon (aw_qty_from_display (AW_QTY_VELOCITY, AW_UNITS_IMPERIAL,
+                                                       aw_qty_to_display (AW_QTY_VELOCITY,
+                                                                          AW_UNITS_IMPERIAL,
+                                                                          91.7)),
+                                  91.7, 1e-12);
+  /* BB mass stays in grams in both systems */
+  g_assert_cmpfloat (aw_qty_to_display (AW_QTY_MASS_G, AW_UNITS_IMPERIAL, 0.25), ==, 0.25);
+  g_assert_cmpstr (aw_qty_unit (AW_QTY_MASS_G, AW_UNITS_IMPERIAL), ==, "g");
+  g_assert_true (aw_parse_number ("0.25", &v));
+  g_assert_cmpfloat (v, ==, 0.25);
+  g_assert_true (aw_parse_number ("  −3 ", &v));
+  g_assert_cmpfloat (v, ==, -3.0);
+  g_assert_false (aw_parse_number ("", &v));
+  g_assert_false (aw_parse_number ("nan", &v));
+  g_assert_false (aw_parse_number ("inf", &v));
+  g_assert_false (aw_parse_number ("1e999", &v));
+  g_assert_false (aw_parse_number ("12 m", &v));
+  g_assert_cmpstr (ascii, ==, "0.30000000000000004");
+}
+
+static void
+test_document_undo (void)
+{
+  g_autoptr (AwDocument) doc = aw_document_new ();
+  AwProject *p;
+
+  g_assert_false (aw_document_get_modified (doc));
+  for (int i = 1; i <= 3; i++)
+    {
+      p = aw_project_copy (aw_document_get_project (doc));
+      ((AwSetup *) g_ptr_array_index (p->setups, 0))->bb.mass_g = 0.20 + 0.01 * i;
+      g_assert_true (aw_document_push (doc, p, "mass", "0:mass", 0, 0));
+    }
+  /* typing in one field is one step */
+  g_assert_true (aw_document_can_undo (doc));
+  aw_document_undo (doc);
+  g_assert_false (aw_document_can_undo (doc));
+  g_assert_false (aw_document_get_modified (doc));
+  g_assert_cmpfloat (((AwSetup *) g_ptr_array_index (aw_document_get_project (doc)->setups,
+                                                     0))->bb.mass_g, ==, 0.20);
+  /* an edit that changes nothing is no step */
+  p = aw_project_copy (aw_document_get_project (doc));
+  g_assert_false (aw_document_push (doc, p, "none", NULL, 0, 0));
+  g_assert_false (aw_document_can_undo (doc));
+  /* after a save, a further edit does not merge into the saved step */
+  aw_document_redo (doc);
+  aw_document_mark_saved (doc);
+  p = aw_project_copy (aw_document_get_project (doc));
+  ((AwSetup *) g_ptr_array_index (p->setups, 0))->bb.mass_g = 0.40;
+  aw_document_push (doc, p, "mass", "0:mass", 0, 0);
+  g_assert_true (aw_document_get_modified (doc));
+  aw_document_undo (doc);
+  g_assert_false (aw_document_get_modified (doc));
+  g_assert_cmpfloat (((AwSetup *) g_ptr_array_index (aw_document_get_project (doc)->setups,
+                                                     0))->bb.mass_g, ==, 0.23);
+}
+
+/* ---- German ---- */
+
+static void
+collect_labels (GtkWidget *w,
+                GString   *out)
+{
+  if (GTK_IS_LABEL (w))
+    {
+      g_string_append (out, gtk_label_get_text (GTK_LABEL (w)));
+      g_string_append_c (out, '\n');
+    }
+  if (GTK_IS_BUTTON (w) && gtk_button_get_label (GTK_BUTTON (w)))
+    {
+      g_string_append (out, gtk_button_get_label (GTK_BUTTON (w)));
+      g_string_append_c (out, '\n');
+    }
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c; c = gtk_widget_get_next_sibling (c))
+    collect_labels (c, out);
+}
+
+static void
+test_german (void)
+{
+  AwWindow *window;
+  g_autoptr (GString) labels = g_string_new (NULL);
+  g_autofree char *csv = NULL;
+  const char *mass_text;
+
+  /* the translation must be there: this test runs with LANGUAGE=de */
+  g_assert_cmpstr (g_dgettext (GETTEXT_PACKAGE, "Copy as CSV"), ==, "Als CSV kopieren");
+
+  window = open_demo ();
+  collect_labels (GTK_WIDGET (window), labels);
+  g_test_message ("%s", labels->str);
+  g_assert_nonnull (strstr (labels->str, "Als CSV kopieren"));
+  g_assert_nonnull (strstr (labels->str, "Replik und Chrono"));
+  g_assert_nonnull (strstr (labels->str, "Reichweite im Band"));
+  g_assert_nonnull (strstr (labels->str, "Entfernung (m)"));
+  g_assert_null (strstr (labels->str, "Copy as CSV"));
+  g_assert_null (strstr (labels->str, "Replica and chrono"));
+
+  /* numbers shown follow the locale: a decimal comma */
+  mass_text = gtk_editable_get_text (GTK_EDITABLE (aw_number_field_get_entry (
+                                       editor_field (window, "mass_field"))));
+  g_assert_nonnull (strchr (mass_text, ','));
+  g_assert_null (strchr (mass_text, '.'));
+
+  /* numbers in files never do */
+  csv = aw_range_view_dup_csv (AW_RANGE_VIEW (aw_window_get_range_view (window)));
+  g_assert_nonnull (csv);
+  {
+    g_auto (GStrv) lines = g_strsplit (csv, "\r\n", -1);
+    g_assert_nonnull (strchr (lines[2], '.'));
+  }
+  {
+    g_autofree char *dir = g_dir_make_tmp ("aw-gui-de-XXXXXX", NULL);
+    g_autofree char *path = g_build_filename (dir, "de.arcw", NULL);
+    g_autofree char *backup = aw_project_backup_path (path);
+    g_autofree char *text = NULL;
+    g_autoptr (GFile) file = g_file_new_for_path (path);
+    g_autoptr (GError) error = NULL;
+
+    g_assert_true (aw_window_save_to (window, file, &error));
+    g_assert_true (g_file_get_contents (path, &text, NULL, NULL));
+    {
+      /* every "mass_g" number is written with a decimal point */
+      const char *m = strstr (text, "\"mass_g\"");
+      g_assert_nonnull (m);
+      m = strchr (m, ':');
+      g_assert_nonnull (m);
+      m++;
+      while (*m == ' ')
+        m++;
+      g_assert_true (g_ascii_isdigit (m[0]) && m[1] == '.');
+    }
+    g_remove (path);
+    g_remove (backup);
+    g_rmdir (dir);
+  }
+  close_window (window);
+}
+
+int
+main (int   argc,
+      char *argv[])
+{
+  const char *localedir = g_getenv ("AW_LOCALEDIR");
+  int status;
+
+  gtk_test_init (&argc, &argv, NULL);
+  if (localedir != NULL)
+    bindtextdomain (GETTEXT_PACKAGE, localedir);
+  bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
+  textdomain (GETTEXT_PACKAGE);
+
+  settings = g_settings_new (AW_APP_ID);
+
+  if (g_strcmp0 (g_getenv ("LANGUAGE"), "de") == 0)
+    {
+      /* the German run needs the locale generated (.ci/install-deps does it) */
+      if (setlocale (LC_ALL, "de_DE.UTF-8") == NULL)
+        g_error ("the de_DE.UTF-8 locale is missing: run .ci/install-deps (locale-gen)");
+      g_test_add_func ("/gui/german/window", test_german);
+    }
+  else
+    {
+      g_test_add_func ("/gui/format/parse", test_format_and_parse);
+      g_test_add_func ("/gui/document/undo", test_document_undo);
+      g_test_add_func ("/gui/window/setups-list", test_setups_list);
+      g_test_add_func ("/gui/window/edit-mass-undo", test_edit_mass_and_undo);
+      g_test_add_func ("/gui/window/setup-actions", test_setup_actions);
+      g_test_add_func ("/gui/window/site-class-csv", test_site_class_and_csv);
+      g_test_add_func ("/gui/window/problem-setup", test_problem_setup);
+      g_test_add_func ("/gui/window/render-png", test_render_png);
+      g_test_add_func ("/gui/window/save-reload", test_save_reload);
+      g_test_add_func ("/gui/window/autosave", test_autosave);
+    }
+  status = g_test_run ();
+  g_clear_object (&settings);
+  return status;
+}
