@@ -36,6 +36,12 @@ print_help (void)
           "  --min-distance-m M    the class's minimum engagement distance\n"
           "  --site NAME --class NAME      a site class from the project instead\n"
           "  --band-cm CM  --sight-height-cm CM  --zero-m M   band and sighting\n"
+          "  --hop-limit RATIO|none  the highest lift ratio the hop-up reaches with the reference\n"
+          "                        BB (the setup's own BB with --setup; default: the setup's hop\n"
+          "                        limit, else none). Every BB then gets at most the same spin\n"
+          "                        parameter (a modelling assumption), so heavier, slower BBs get\n"
+          "                        less lift. Without a limit every BB is hopped as well as it\n"
+          "                        needs, which favours heavy BBs.\n"
           "  --format text|csv|json\n");
 }
 
@@ -72,12 +78,15 @@ limit_set (const AwSiteClass *site)
 }
 
 static void
-print_json (const AwPowerCurve *curve, const AwSiteClass *site, const AwRecommendation *rec)
+print_json (const AwPowerCurve *curve, const AwSiteClass *site, const AwRecommendation *rec,
+            double hop_limit, const AwShot *own)
 {
   char b[14][40];
   printf ("{\"summary\": {\"power_model\": \"%s\", \"reference_mass_g\": %s, "
           "\"reference_velocity_mps\": %s, \"energy_limit_j\": %s, \"chrono_mass_g\": %s, "
-          "\"min_engagement_m\": %s, \"best_mass_g\": %s, \"reason\": \"%s\"},\n \"rows\": [",
+          "\"min_engagement_m\": %s, \"best_mass_g\": %s, \"reason\": \"%s\", "
+          "\"hop_limit_lift_ratio\": %s, \"hop_limit_mass_g\": %s, "
+          "\"hop_limit_velocity_mps\": %s},\n \"rows\": [",
           curve->model == AW_POWER_CONSTANT_ENERGY ? "constant-energy"
           : curve->model == AW_POWER_CONSTANT_VELOCITY ? "constant-velocity"
           : curve->model == AW_POWER_CREEP ? "creep" : "measured",
@@ -91,7 +100,10 @@ print_json (const AwPowerCurve *curve, const AwSiteClass *site, const AwRecommen
           aw_cli_num (b[4], 40, site->min_engagement_m > 0.0 ? site->min_engagement_m : NAN, 9),
           aw_cli_num (b[5], 40, rec->best >= 0 ? aw_kg_to_g (rec->rows[rec->best].mass_kg) : NAN,
                       9),
-          reason_name (rec->reason));
+          reason_name (rec->reason),
+          aw_cli_num (b[6], 40, hop_limit, 9),
+          aw_cli_num (b[7], 40, isnan (hop_limit) ? NAN : aw_kg_to_g (own->mass_kg), 9),
+          aw_cli_num (b[8], 40, isnan (hop_limit) ? NAN : own->velocity_mps, 9));
   for (size_t i = 0; i < rec->n_rows; i++)
     {
       const AwRecommendRow *r = &rec->rows[i];
@@ -99,7 +111,8 @@ print_json (const AwPowerCurve *curve, const AwSiteClass *site, const AwRecommen
               "\"energy_j\": %s, \"chrono_energy_j\": %s, \"compliance\": \"%s\", "
               "\"energy_over_limit\": %s, \"status\": \"%s\", \"lift_ratio\": %s, "
               "\"muzzle_spin_rpm\": %s, \"bore_elevation_deg\": %s, \"band_near_m\": %s, "
-              "\"band_range_m\": %s, \"drift_30m_cm_per_mps\": %s, \"recommended\": %s}",
+              "\"band_range_m\": %s, \"drift_30m_cm_per_mps\": %s, \"recommended\": %s, "
+              "\"hop_limit_lift_ratio\": %s, \"hop_limited\": %s}",
               i ? "," : "",
               aw_cli_num (b[0], 40, aw_kg_to_g (r->mass_kg), 9),
               aw_cli_num (b[1], 40, r->velocity_mps, 9),
@@ -113,7 +126,9 @@ print_json (const AwPowerCurve *curve, const AwSiteClass *site, const AwRecommen
               aw_cli_num (b[8], 40, r->band.band_near_m, 9),
               aw_cli_num (b[9], 40, r->band.band_range_m, 9),
               aw_cli_num (b[10], 40, r->drift_30m_cm_per_mps, 9),
-              r->recommended ? "true" : "false");
+              r->recommended ? "true" : "false",
+              aw_cli_num (b[11], 40, r->band.hop_limit_lift_ratio, 9),
+              r->band.hop_limited ? "true" : "false");
     }
   printf ("]}\n");
 }
@@ -123,11 +138,11 @@ print_csv (const AwRecommendation *rec)
 {
   char b[10][40];
   printf ("mass_g,velocity_mps,energy_j,chrono_energy_j,compliance,energy_over_limit,lift_ratio,"
-          "band_range_m,drift_30m_cm_per_mps,recommended\r\n");
+          "band_range_m,drift_30m_cm_per_mps,recommended,hop_limit_lift_ratio,hop_limited\r\n");
   for (size_t i = 0; i < rec->n_rows; i++)
     {
       const AwRecommendRow *r = &rec->rows[i];
-      printf ("%s,%s,%s,%s,%s,%d,%s,%s,%s,%d\r\n",
+      printf ("%s,%s,%s,%s,%s,%d,%s,%s,%s,%d,%s,%d\r\n",
               aw_cli_num (b[0], 40, aw_kg_to_g (r->mass_kg), 9),
               aw_cli_num (b[1], 40, r->velocity_mps, 9), aw_cli_num (b[2], 40, r->energy_j, 9),
               aw_cli_num (b[3], 40, r->chrono_energy_j, 9), compliance_name (r->compliance),
@@ -136,13 +151,16 @@ print_csv (const AwRecommendation *rec)
                                               : "",
               isfinite (r->drift_30m_cm_per_mps)
               ? aw_cli_num (b[6], 40, r->drift_30m_cm_per_mps, 9) : "",
-              r->recommended);
+              r->recommended,
+              isfinite (r->band.hop_limit_lift_ratio)
+              ? aw_cli_num (b[7], 40, r->band.hop_limit_lift_ratio, 9) : "",
+              r->band.hop_limited);
     }
 }
 
 static void
 print_text (const AwAnalysisInput *in, const AwPowerCurve *curve, const AwSiteClass *site,
-            const AwRecommendation *rec)
+            const AwRecommendation *rec, double hop_limit, const AwShot *own)
 {
   if (curve->model == AW_POWER_MEASURED)
     printf ("Replica: measured velocities at %zu BB mass%s; energy between them interpolated\n",
@@ -169,8 +187,11 @@ print_text (const AwAnalysisInput *in, const AwPowerCurve *curve, const AwSiteCl
     }
   else
     printf ("No energy limit given: compliance is not checked\n");
-  printf ("Band ±%.0f cm around the sight line, auto hop for every BB\n\n",
-          in->band_half_m * 100.0);
+  printf ("Band ±%.0f cm around the sight line, auto hop for every BB%s\n",
+          in->band_half_m * 100.0, isnan (hop_limit) ? "" : " up to the hop limit");
+  if (!isnan (hop_limit))
+    aw_cli_print_hop_limit (stdout, hop_limit, own, "");
+  printf ("\n");
 
   printf ("  %5s %6s %5s %8s %8s %6s %6s %7s %10s\n", "BB g", "m/s", "fps", "energy J",
           "site J", "limit", "hop", "band m", "drift cm");
@@ -192,12 +213,13 @@ print_text (const AwAnalysisInput *in, const AwPowerCurve *curve, const AwSiteCl
         g_snprintf (hop, sizeof hop, "%.2f", r->band.lift_ratio);
       else
         g_strlcpy (hop, "-", sizeof hop);
-      printf ("%s %5.2f %6.1f %5.0f %8.3f %8.3f %6s %6s %7s %10s%s\n",
+      printf ("%s %5.2f %6.1f %5.0f %8.3f %8.3f %6s %6s %7s %10s%s%s\n",
               r->recommended ? "*" : " ", aw_kg_to_g (r->mass_kg), r->velocity_mps,
               aw_mps_to_fps (r->velocity_mps), r->energy_j, r->chrono_energy_j,
               r->compliance == AW_COMPLIANCE_OVER ? "OVER"
               : r->compliance == AW_COMPLIANCE_UNDER ? "under" : "-",
-              hop, band, drift, r->energy_over_limit ? "  ! own energy over the limit" : "");
+              hop, band, drift, r->band.hop_limited ? "  hop-limited" : "",
+              r->energy_over_limit ? "  ! own energy over the limit" : "");
     }
   printf ("\n");
   if (rec->best >= 0)
@@ -211,6 +233,14 @@ print_text (const AwAnalysisInput *in, const AwPowerCurve *curve, const AwSiteCl
     }
   else
     printf ("No BB mass is recommended: none is within the limit with a usable band.\n");
+  bool any_limited = false;
+  for (size_t i = 0; i < rec->n_rows; i++)
+    any_limited |= rec->rows[i].band.hop_limited;
+  if (any_limited)
+    printf ("Marked hop-limited: the hop-up's strongest setting lifts that BB less than the best "
+            "hop would;\nits band range is the shorter one it gets at that setting.\n");
+  if (isnan (hop_limit))
+    aw_cli_print_hop_limit (stdout, hop_limit, own, "");
   bool any_over = false;
   for (size_t i = 0; i < rec->n_rows; i++)
     any_over |= rec->rows[i].energy_over_limit;
@@ -230,6 +260,8 @@ aw_cli_recommend (int argc, char **argv)
   AwCliSiteOptions sto;
   AwAnalysisInput in;
   AwRecommendation rec = { 0 };
+  AwShot own;
+  double hop_limit = NAN;
   const char *format = "text", *masses_text = DEFAULT_MASSES;
   const char *project = NULL, *setup = NULL;
   double band_cm = 15.0, sight_cm = 0.0, zero_m = NAN, lift_ratio;
@@ -290,6 +322,7 @@ aw_cli_recommend (int argc, char **argv)
       if (!aw_cli_project_base_load (project, setup, &sto, &in, &pb, cmd))
         return AW_CLI_EXIT_USAGE;
     }
+  own = in.shot;   /* the setup's own BB at its own velocity (the hop limit's reference) */
   bool cli_velocity = so.seen_velocity_mps || so.seen_velocity_fps || so.seen_energy;
   if (!pb.setup && !cli_velocity && !sto.seen_measured_mps && !sto.seen_measured_fps)
     {
@@ -306,6 +339,21 @@ aw_cli_recommend (int argc, char **argv)
   if (seen_zero)
     in.zero_distance_m = zero_m;
   in.hop_mode = AW_HOP_MODE_AUTO;
+  {
+    /* the reference BB of the hop limit: the command line's chrono reading when given, else the
+     * setup's own BB at its own velocity; air and models as now chosen */
+    double m = own.mass_kg, v = own.velocity_mps;
+    own = in.shot;
+    if (pb.setup && !cli_velocity)
+      {
+        own.mass_kg = m;
+        own.velocity_mps = v;
+      }
+    own.spin_rad_s = 0.0;
+    own.elevation_rad = 0.0;
+    if (!aw_cli_hop_limit_apply (&sto, pb.setup, &own, &in, &hop_limit, cmd))
+      return AW_CLI_EXIT_USAGE;
+  }
 
   AwPowerCurve curve;
   AwSiteClass site;
@@ -374,14 +422,14 @@ aw_cli_recommend (int argc, char **argv)
   switch (fmt)
     {
     case FMT_JSON:
-      print_json (&curve, &site, &rec);
+      print_json (&curve, &site, &rec, hop_limit, &own);
       break;
     case FMT_CSV:
       print_csv (&rec);
       break;
     case FMT_TEXT:
     default:
-      print_text (&in, &curve, &site, &rec);
+      print_text (&in, &curve, &site, &rec, hop_limit, &own);
       break;
     }
   aw_recommendation_clear (&rec);

@@ -37,6 +37,7 @@ aw_cli_site_options_add (AwCliSiteOptions *o, GArray *args)
   ARG ("power", AW_CLI_ARG_STRING, &o->power, 0, 0, &o->seen_power);
   ARG ("measured-mps", AW_CLI_ARG_STRING, &o->measured_mps, 0, 0, &o->seen_measured_mps);
   ARG ("measured-fps", AW_CLI_ARG_STRING, &o->measured_fps, 0, 0, &o->seen_measured_fps);
+  ARG ("hop-limit", AW_CLI_ARG_STRING, &o->hop_limit, 0, 0, &o->seen_hop_limit);
 }
 
 bool
@@ -190,6 +191,60 @@ aw_cli_site_options_apply (const AwCliSiteOptions *o, const AwShot *shot, AwPowe
   site->chrono_mass_kg = o->seen_chrono_mass ? aw_g_to_kg (o->chrono_mass_g) : NAN;
   site->min_engagement_m = o->seen_min_distance ? o->min_distance_m : NAN;
   return true;
+}
+
+bool
+aw_cli_parse_hop_limit (const char *text, double *ratio, const char *command)
+{
+  double v;
+  if (g_str_equal (text, "none"))
+    {
+      *ratio = NAN;
+      return true;
+    }
+  if (!parse_plain_number (text, &v) || v < AW_HOP_MAX_LIFT_RATIO_MIN
+      || v > AW_HOP_MAX_LIFT_RATIO_MAX)
+    {
+      aw_cli_error (command, "--hop-limit: expected the highest lift ratio the hop-up reaches "
+                    "(0.1 … 20) or none (found \"%s\")", text);
+      return false;
+    }
+  *ratio = v;
+  return true;
+}
+
+bool
+aw_cli_hop_limit_apply (const AwCliSiteOptions *o, const AwSetup *setup, const AwShot *own,
+                        AwAnalysisInput *in, double *ratio, const char *command)
+{
+  double r = setup ? setup->hop.max_lift_ratio : NAN;
+  if (o->seen_hop_limit && !aw_cli_parse_hop_limit (o->hop_limit, &r, command))
+    return false;
+  *ratio = r;
+  in->hop_limit_s = NAN;
+  if (isnan (r))
+    return true;
+  AwShot s = *own;
+  s.spin_rad_s = 0.0;
+  in->hop_limit_s = aw_hop_limit_s_for_lift_ratio (&s, r);
+  /* NAN here: the lift model gives no lift, so there is nothing to limit */
+  if (isnan (in->hop_limit_s))
+    *ratio = NAN;
+  return true;
+}
+
+void
+aw_cli_print_hop_limit (FILE *out, double ratio, const AwShot *own, const char *indent)
+{
+  if (isnan (ratio))
+    fprintf (out, "%sNo hop limit given: the model lets every BB be hopped as well as it needs, "
+             "which favours\n%sheavy BBs; give --hop-limit RATIO (the highest lift ratio the "
+             "hop-up reaches).\n", indent, indent);
+  else
+    fprintf (out, "%sHop limit: lift ratio %.2f at most with the %.2f g BB at %.1f m/s. At its "
+             "strongest setting the\n%shop-up gives every BB the same spin parameter (a modelling "
+             "assumption), so heavier,\n%sslower BBs get less lift.\n", indent, ratio,
+             aw_kg_to_g (own->mass_kg), own->velocity_mps, indent, indent);
 }
 
 const char *

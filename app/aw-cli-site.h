@@ -26,6 +26,9 @@ typedef struct
   const char *measured_mps;     /* "G:V,G:V,…" */
   const char *measured_fps;
   bool seen_power, seen_measured_mps, seen_measured_fps;
+  /* hop limit: --hop-limit RATIO|none */
+  const char *hop_limit;
+  bool seen_hop_limit;
 } AwCliSiteOptions;
 
 void aw_cli_site_options_init (AwCliSiteOptions *o);
@@ -60,6 +63,23 @@ bool aw_cli_project_base_load (const char *file, const char *setup_name,
                                AwCliProjectBase *base, const char *command);
 void aw_cli_project_base_clear (AwCliProjectBase *base);
 G_DEFINE_AUTO_CLEANUP_CLEAR_FUNC (AwCliProjectBase, aw_cli_project_base_clear)
+
+/* The hop limit (modelling assumption, no source: a hop-up at its strongest setting gives at most
+ * the same spin parameter whatever the BB): --hop-limit RATIO|none, else the stored setup's
+ * hop.max_lift_ratio (setup may be NULL). The ratio is the one seen with `own` (the BB and
+ * velocity it was measured with, and the air and lift model in use); it is converted into
+ * in->hop_limit_s. *ratio receives the ratio (NAN: no limit). Returns false after printing one
+ * line naming the option. */
+bool aw_cli_hop_limit_apply (const AwCliSiteOptions *o, const AwSetup *setup, const AwShot *own,
+                             AwAnalysisInput *in, double *ratio, const char *command);
+
+/* Parses a --hop-limit value: a lift ratio 0.1 … 20, or "none" (NAN). Returns false after
+ * printing one line naming the option. */
+bool aw_cli_parse_hop_limit (const char *text, double *ratio, const char *command);
+
+/* One line about the hop limit for text output: the limit and the BB it was seen with, or (ratio
+ * NAN) that without one every BB is hopped as well as needed, which favours heavy BBs. */
+void aw_cli_print_hop_limit (FILE *out, double ratio, const AwShot *own, const char *indent);
 
 /* Parses "0.20,0.25,…" (grams) into kg. Returns NULL after printing an error naming option. */
 GArray *aw_cli_parse_masses (const char *text, const char *option, const char *command);

@@ -10,6 +10,7 @@
 #include <string.h>
 
 #include "aw-cli.h"
+#include "aw-cli-site.h"
 #include "aw-project-io.h"
 #include "aw-sweep.h"
 #include "aw-units.h"
@@ -36,6 +37,11 @@ print_help (void)
           "                       muzzle-energy, compliance (%% of --energy-limit-j), or all\n"
           "  --hop default|setup|auto   the hop where no input varies it (default: auto when\n"
           "                       the BB mass varies, else the setup's)\n"
+          "  --hop-limit RATIO|none     the highest lift ratio the hop-up reaches with each\n"
+          "                       setup's own BB (default: the setup's hop limit, else none);\n"
+          "                       auto hop stays under the limit at every point, a BB of\n"
+          "                       another mass getting the same spin parameter (a modelling\n"
+          "                       assumption); json lists the points held at it (hop_limited)\n"
           "  --threads N          worker threads (default: one per processor)\n"
           "  --format csv|json    (default csv)\n"
           "  --output FILE        write to FILE (replaced only when complete) instead of stdout\n"
@@ -228,7 +234,8 @@ json_axis (GString *out, const char *member, const AwSweepAxis *axis, const doub
 }
 
 static char *
-to_json (const AwSweepResult *r, const AwSweepMetric *metrics, guint n_metrics)
+to_json (const AwSweepResult *r, const AwSweepMetric *metrics, guint n_metrics,
+         const AwSweepSetup *setups)
 {
   GString *out = g_string_new ("{");
   gboolean two = r->desc.axis[1].var != AW_SWEEP_VAR_NONE;
@@ -291,7 +298,25 @@ to_json (const AwSweepResult *r, const AwSweepMetric *metrics, guint n_metrics)
           if (two)
             g_string_append_c (out, ']');
         }
-      g_string_append (out, "]}");
+      g_string_append_c (out, ']');
+      if (!isnan (setups[s].input.hop_limit_s))
+        {
+          /* the points where the setup's hop limit held auto hop (or a given hop is above it) */
+          g_string_append (out, ",\n   \"hop_limited\": [");
+          for (guint j = 0; j < r->n2; j++)
+            {
+              if (two)
+                g_string_append (out, j ? ", [" : "[");
+              for (guint i = 0; i < r->n1; i++)
+                g_string_append_printf (out, "%s%s", i ? ", " : "",
+                                        aw_sweep_result_point (r, s, i, j)->hop_limited
+                                        ? "true" : "false");
+              if (two)
+                g_string_append_c (out, ']');
+            }
+          g_string_append_c (out, ']');
+        }
+      g_string_append_c (out, '}');
     }
   g_string_append (out, "]");
   if (energy)
@@ -337,7 +362,7 @@ aw_cli_sweep (int argc, char **argv)
   AwSweepDesc desc;
   const char *vary = NULL, *vary2 = NULL, *metric_name = "band-range", *format = "csv";
   const char *hop = NULL, *project_path = NULL, *output = NULL, *power = NULL;
-  const char *site_name = NULL, *class_name = NULL;
+  const char *site_name = NULL, *class_name = NULL, *hop_limit_text = NULL;
   double threads = 0.0, band_half = AW_BAND_HALF_DEFAULT_M, sight = 0.0, zero = NAN;
   double limit = NAN, chrono_g = NAN;
   bool help = false, progress = false, seen_band = false, seen_sight = false, seen_zero = false;
@@ -361,6 +386,7 @@ aw_cli_sweep (int argc, char **argv)
   ADD ("vary2", AW_CLI_ARG_STRING, &vary2, 0, 0, NULL);
   ADD ("metric", AW_CLI_ARG_STRING, &metric_name, 0, 0, NULL);
   ADD ("hop", AW_CLI_ARG_STRING, &hop, 0, 0, NULL);
+  ADD ("hop-limit", AW_CLI_ARG_STRING, &hop_limit_text, 0, 0, NULL);
   ADD ("threads", AW_CLI_ARG_POSITIVE, &threads, 1, 256, NULL);
   ADD ("format", AW_CLI_ARG_STRING, &format, 0, 0, NULL);
   ADD ("output", AW_CLI_ARG_STRING, &output, 0, 0, NULL);
@@ -423,6 +449,9 @@ aw_cli_sweep (int argc, char **argv)
       aw_cli_error (CMD, "--hop: expected default, setup or auto (found \"%s\")", hop);
       return AW_CLI_EXIT_USAGE;
     }
+  double hop_limit = NAN;
+  if (hop_limit_text && !aw_cli_parse_hop_limit (hop_limit_text, &hop_limit, CMD))
+    return AW_CLI_EXIT_USAGE;
   if (g_str_equal (format, "csv"))
     json = FALSE;
   else if (g_str_equal (format, "json"))
@@ -553,6 +582,17 @@ aw_cli_sweep (int argc, char **argv)
       g_array_append_val (setups, ss);
     }
 
+  /* --hop-limit: the ratio seen with each setup's own BB at its own velocity */
+  if (hop_limit_text)
+    for (guint i = 0; i < setups->len; i++)
+      {
+        AwSweepSetup *ss = &g_array_index (setups, AwSweepSetup, i);
+        AwShot own = ss->input.shot;
+        own.spin_rad_s = 0.0;
+        ss->input.hop_limit_s = isnan (hop_limit) ? NAN
+                                                  : aw_hop_limit_s_for_lift_ratio (&own, hop_limit);
+      }
+
   result = aw_sweep_run ((AwSweepSetup *) setups->data, setups->len, &desc, (guint) threads,
                          progress ? show_progress : NULL, NULL, NULL, &error);
   if (result == NULL)
@@ -581,7 +621,7 @@ aw_cli_sweep (int argc, char **argv)
   }
 
   if (json)
-    text = to_json (result, metrics, n_metrics);
+    text = to_json (result, metrics, n_metrics, (const AwSweepSetup *) setups->data);
   else
     {
       text = aw_sweep_result_to_csv (result, metrics, n_metrics);

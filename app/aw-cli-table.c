@@ -37,6 +37,9 @@ print_help (void)
           "  --site NAME --class NAME        site class from the project\n"
           "  --power constant-energy|constant-velocity|creep:PCT|measured\n"
           "  --measured-mps G:V,… | --measured-fps G:V,…   measured velocities per BB mass\n"
+          "  --hop-limit RATIO|none  the highest lift ratio the hop-up reaches with the setup's\n"
+          "                        own BB (default: the setup's hop limit, else none); auto hop\n"
+          "                        stays under it, a given hop above it is flagged\n"
           "  --format text|csv|json\n");
 }
 
@@ -75,7 +78,8 @@ print_json (const AwAnalysisInput *in, const AwRangeTable *t, const Compliance *
           "\"ground_distance_m\": %s, \"apex_height_m\": %s, \"apex_distance_m\": %s, "
           "\"time_of_flight_s\": %s, \"band_half_cm\": %s, \"sight_height_cm\": %s, "
           "\"zero_m\": %s, \"angle_unit\": \"%s\", \"mass_g\": %s, \"velocity_mps\": %s, "
-          "\"energy_j\": %s",
+          "\"energy_j\": %s, \"hop_limit_lift_ratio\": %s, \"hop_limited\": %s, "
+          "\"hop_over_limit\": %s",
           aw_analysis_status_name (r->status),
           aw_cli_num (b[0], 40, r->band_range_m, 9), aw_cli_num (b[1], 40, r->band_near_m, 9),
           aw_cli_num (b[2], 40, r->lift_ratio, 9),
@@ -90,7 +94,9 @@ print_json (const AwAnalysisInput *in, const AwRangeTable *t, const Compliance *
           in->angle_unit == AW_ANGLE_MOA ? "moa" : "mrad",
           aw_cli_num (b[12], 40, aw_kg_to_g (in->shot.mass_kg), 9),
           aw_cli_num (b[13], 40, in->shot.velocity_mps, 9),
-          aw_cli_num (b[14], 40, aw_energy_j (in->shot.mass_kg, in->shot.velocity_mps), 9));
+          aw_cli_num (b[14], 40, aw_energy_j (in->shot.mass_kg, in->shot.velocity_mps), 9),
+          aw_cli_num (b[15], 40, r->hop_limit_lift_ratio, 9),
+          r->hop_limited ? "true" : "false", r->hop_over_limit ? "true" : "false");
   if (cp->have_site)
     printf (", \"energy_limit_j\": %s, \"chrono_mass_g\": %s, \"chrono_energy_j\": %s, "
             "\"compliance\": \"%s\", \"energy_over_limit\": %s, \"min_engagement_m\": %s",
@@ -162,6 +168,12 @@ print_text (const AwAnalysisInput *in, const AwRangeTable *t, const Compliance *
   printf ("Hop: %s, lift ratio %.3f (model spin %.0f rpm, depends on the lift model)\n",
           in->hop_mode == AW_HOP_MODE_AUTO ? "auto" : "as given", r->lift_ratio,
           aw_rad_s_to_rpm (r->spin_rad_s));
+  if (isfinite (r->hop_limit_lift_ratio))
+    printf ("Hop limit: lift ratio %.3f at most with this BB at this speed%s\n",
+            r->hop_limit_lift_ratio,
+            r->hop_over_limit ? "; the hop given is ABOVE it (the hop-up cannot reach it)"
+            : r->hop_limited ? "; auto hop is held there (hop-limited: a stronger hop would "
+                               "reach further)" : "");
   if (in->zero_distance_m > 0.0)
     printf ("Sight height %.1f cm, zero %.1f m, bore elevation %.3f°\n",
             in->sight_height_m * 100.0, in->zero_distance_m, aw_rad_to_deg (r->elevation_rad));
@@ -238,6 +250,8 @@ aw_cli_table (int argc, char **argv)
   g_autoptr (GArray) args = g_array_new (TRUE, TRUE, sizeof (AwCliArg));
   g_autofree AwPowerPoint *points = NULL;
   g_auto (AwCliProjectBase) pb = { 0 };
+  AwShot own;
+  double hop_limit = NAN;
 
   aw_cli_shot_options_init (&so);
   aw_cli_shot_options_add (&so, args);
@@ -300,9 +314,25 @@ aw_cli_table (int argc, char **argv)
       if (!aw_cli_project_base_load (project, setup, &sto, &in, &pb, cmd))
         return AW_CLI_EXIT_USAGE;
     }
+  own = in.shot;   /* the setup's own BB at its own velocity (the hop limit's reference) */
   if (!aw_cli_shot_options_apply (&so, &in.shot, &lift_ratio, cmd))
     return AW_CLI_EXIT_USAGE;
   bool cli_velocity = so.seen_velocity_mps || so.seen_velocity_fps || so.seen_energy;
+  {
+    /* the hop limit is seen with the setup's own BB (or the BB and velocity given here); air
+     * and models as now chosen */
+    double m = own.mass_kg, v = own.velocity_mps;
+    own = in.shot;
+    if (pb.setup && !cli_velocity)
+      {
+        own.mass_kg = m;
+        own.velocity_mps = v;
+      }
+    own.spin_rad_s = 0.0;
+    own.elevation_rad = 0.0;
+    if (!aw_cli_hop_limit_apply (&sto, pb.setup, &own, &in, &hop_limit, cmd))
+      return AW_CLI_EXIT_USAGE;
+  }
   if (pb.setup && so.seen_mass && !cli_velocity)
     {
       /* another BB for the stored replica: velocity from its energy-versus-mass behaviour */

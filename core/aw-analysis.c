@@ -29,6 +29,14 @@
  * golden-section search when a scan point wins); when the apex criterion does not apply (muzzle
  * above the band, apex above the top without hop, a zero distance) a scan with golden-section
  * refinement maximises the band range directly.
+ *
+ * Hop limit (modelling assumption, no source: a hop-up at its strongest setting gives at most the
+ * same spin parameter S = r·ω⊥/V at the muzzle whatever the BB). Auto hop searches lift ratios
+ * only up to the one the limit gives with the shot's own BB and speed; when that cuts the search
+ * short, the strongest setting itself is tried too, and a result sitting at it is flagged
+ * hop_limited. A hop given as a lift ratio or a spin is flown as given and only flagged when it
+ * is above the limit. Without a limit (NAN) nothing of this runs: results are those of the
+ * unlimited search, bit for bit.
  */
 #include "aw-analysis.h"
 
@@ -46,6 +54,7 @@
 #define AW_ELEV_SCAN_DEG    3.0      /* optimise_elevation scans ±this many degrees… */
 #define AW_ELEV_SCAN_N      13       /* …at this many points, then refines */
 #define AW_DEG              (M_PI / 180.0)
+#define AW_HOP_LIMIT_TOL    2e-3     /* auto hop within this (relative) of the hop limit is at it */
 
 /* ---- defaults, validation, names ---- */
 
@@ -61,6 +70,13 @@ aw_analysis_input_init (AwAnalysisInput *in)
   in->zero_distance_m = NAN;
   in->optimise_elevation = false;
   in->angle_unit = AW_ANGLE_MRAD;
+  in->hop_limit_s = NAN;
+}
+
+static bool
+hop_limit_set (const AwAnalysisInput *in)
+{
+  return !isnan (in->hop_limit_s);
 }
 
 static bool
@@ -82,6 +98,7 @@ result_reset (AwBandResult *out)
   out->apex_height_m = NAN;
   out->apex_distance_m = NAN;
   out->time_of_flight_s = NAN;
+  out->hop_limit_lift_ratio = NAN;
 }
 
 /* Checks the analysis fields (not the hop mode's value, see check_hop). */
@@ -107,6 +124,9 @@ check_input (const AwAnalysisInput *in)
   if (in->hop_mode == AW_HOP_MODE_SPIN
       && (!isfinite (in->hop_value) || in->hop_value < 0.0 || in->hop_value > AW_SPIN_CAP_RAD_S))
     return AW_FIELD_HOP_VALUE;
+  if (hop_limit_set (in)
+      && (!isfinite (in->hop_limit_s) || in->hop_limit_s < 0.0 || in->hop_limit_s > 1000.0))
+    return AW_FIELD_HOP_LIMIT;
   return AW_FIELD_NONE;
 }
 
@@ -166,6 +186,7 @@ aw_analysis_field_name (AwAnalysisField field)
     case AW_FIELD_POWER_CURVE: return "power-curve";
     case AW_FIELD_SITE: return "site";
     case AW_FIELD_MASSES: return "masses";
+    case AW_FIELD_HOP_LIMIT: return "hop-limit";
     default: return "unknown";
     }
 }
@@ -360,6 +381,79 @@ set_lift_ratio (AwShot *shot, double l)
     }
   shot->spin_rad_s = 0.0;
   return 0.0;
+}
+
+/* ---- hop limit ---- */
+
+double
+aw_hop_limit_s_for_lift_ratio (const AwShot *own, double max_lift_ratio)
+{
+  double w;
+  if (!own || !isfinite (max_lift_ratio) || max_lift_ratio < 0.0)
+    return NAN;
+  switch (aw_shot_spin_for_lift_ratio (own, max_lift_ratio, &w))
+    {
+    case AW_HOP_OK:
+      return aw_shot_spin_parameter_for_spin (own, w);
+    case AW_HOP_UNREACHABLE:
+      /* beyond the model's reach: its own ceiling, so the limit never binds */
+      return aw_shot_spin_parameter_for_spin (own, AW_SPIN_CAP_RAD_S);
+    case AW_HOP_NO_LIFT:
+    case AW_HOP_BAD_INPUT:
+    default:
+      return NAN;
+    }
+}
+
+double
+aw_hop_limit_lift_ratio (const AwShot *shot, double hop_limit_s)
+{
+  if (!shot || isnan (hop_limit_s))
+    return NAN;
+  /* at a fixed S the lift ratio is ½ρA·V²·C_L(S)/(m·g): the spin that gives S here, uncapped */
+  double w = aw_shot_spin_for_spin_parameter (shot, hop_limit_s);
+  if (isnan (w))
+    return NAN;
+  return aw_shot_lift_ratio_for_spin (shot, w);
+}
+
+/* The largest lift ratio the input's hop limit allows for shot; INFINITY without a limit. */
+static double
+hop_limit_ratio (const Ctx *c, const AwShot *shot)
+{
+  if (!hop_limit_set (c->in))
+    return INFINITY;
+  double l = aw_hop_limit_lift_ratio (shot, c->in->hop_limit_s);
+  return isnan (l) ? INFINITY : l;
+}
+
+/* Sets the hop-limit fields of a result for the shot as flown (spin and elevation set) with lift
+ * ratio l. auto_hop: flagged when l sits at the limit; else when the hop is above it. */
+static void
+note_hop_limit (const AwAnalysisInput *in, const AwShot *shot, double l, bool auto_hop,
+                AwBandResult *out)
+{
+  out->hop_limited = false;
+  out->hop_over_limit = false;
+  out->hop_limit_lift_ratio = NAN;
+  if (!hop_limit_set (in))
+    return;
+  double lim = aw_hop_limit_lift_ratio (shot, in->hop_limit_s);
+  out->hop_limit_lift_ratio = lim;
+  if (isnan (lim) || !isfinite (l))
+    return;
+  if (auto_hop)
+    /* at the limit: the search's resolution near it (a golden-section bracket of about 6e-4 of
+     * the range searched, and noise from the zero's tolerance) and the limit's small change with
+     * the bore elevation in a wind are covered by 0.2 % */
+    out->hop_limited = l >= lim * (1.0 - AW_HOP_LIMIT_TOL);
+  else
+    {
+      double s = aw_shot_spin_parameter_for_spin (shot, shot->spin_rad_s);
+      out->hop_over_limit = (isfinite (s) && s > in->hop_limit_s * (1.0 + 1e-9))
+                            || l > lim * (1.0 + 1e-9);
+      out->hop_limited = out->hop_over_limit;
+    }
 }
 
 /* ---- zero ---- */
@@ -642,8 +736,11 @@ auto_hop_fixed (Ctx *c, AwShot *shot, bool verify, double *l_best, double *range
 {
   AwAnalysisStatus fail = AW_ANALYSIS_OK;
   Best best = { 0.0, -1.0, shot->elevation_rad };
-  double l_max = lift_ratio_max (shot);
+  double l_model = lift_ratio_max (shot);
+  double l_limit = hop_limit_ratio (c, shot);   /* INFINITY without a hop limit */
+  double l_max = fmin (l_model, l_limit);
   double e0 = shot->elevation_rad;
+  bool cut = false;                             /* the hop limit cut the search short */
   Band b;
 
   band_init (c->in, shot, &b);
@@ -660,6 +757,7 @@ auto_hop_fixed (Ctx *c, AwShot *shot, bool verify, double *l_best, double *range
     {
       /* the elevation follows the hop: maximise the band range directly */
       double top = fmin (l_max, 4.0);
+      cut = l_limit < fmin (l_model, 4.0);
       if (!scan_refine (c, shot, 0.0, top, AW_SCAN_GENERIC, true, -1.0, &best, &fail))
         return fail;
     }
@@ -675,6 +773,7 @@ auto_hop_fixed (Ctx *c, AwShot *shot, bool verify, double *l_best, double *range
       if (isnan (apex))
         return AW_ANALYSIS_FLIGHT_FAILED;
       ga = apex - b.hi;
+      cut = ga < 0.0 && l_limit < l_model;
       if (ga < 0.0)
         {
           lb = fmin (1.2, l_max);
@@ -771,10 +870,22 @@ auto_hop_fixed (Ctx *c, AwShot *shot, bool verify, double *l_best, double *range
       else
         {
           /* the apex is above the top without hop (or the muzzle is above the band) */
+          cut = l_limit < fmin (l_model, 4.0);
           if (!scan_refine (c, shot, 0.0, fmin (l_max, 4.0), AW_SCAN_GENERIC, true, -1.0, &best,
                             &fail))
             return fail;
         }
+    }
+
+  /* the hop-up's strongest setting itself, when the limit cut the search short (a scan or a
+   * golden-section search may stop just below it) */
+  if (cut && best.l < l_max)
+    {
+      shot->elevation_rad = e0;
+      double r = eval_hop (c, shot, l_max, NULL, &fail);
+      if (isnan (r))
+        return fail;
+      consider (&best, l_max, r, shot->elevation_rad);
     }
 
   /* leave the best hop and elevation on the shot */
@@ -895,7 +1006,9 @@ aw_band_of_shot (const AwAnalysisInput *in, const AwShot *shot, AwBandResult *ou
   if (!validate (&tmp, out))
     return out->status;
   ctx_init (&c, in);
-  return finish_result (&c, shot, aw_shot_lift_ratio_for_spin (shot, shot->spin_rad_s), out);
+  double l = aw_shot_lift_ratio_for_spin (shot, shot->spin_rad_s);
+  note_hop_limit (in, shot, l, false, out);
+  return finish_result (&c, shot, l, out);
 }
 
 AwAnalysisStatus
@@ -927,10 +1040,12 @@ aw_auto_hop (const AwAnalysisInput *in, AwBandResult *out)
       AwAnalysisStatus zs = solve_zero (&c, &shot, in->zero_distance_m, l);
       if (zs != AW_ANALYSIS_OK)
         {
+          note_hop_limit (in, &shot, l, true, out);
           finish_result (&c, &shot, l, out);
           return out->status = zs;
         }
     }
+  note_hop_limit (in, &shot, l, true, out);
   return finish_result (&c, &shot, l, out);
 }
 
@@ -956,6 +1071,8 @@ aw_analysis_solve (const AwAnalysisInput *in, AwBandResult *out)
       if (hs != AW_HOP_OK)
         {
           out->lift_ratio = in->hop_value;
+          shot.spin_rad_s = 0.0;
+          note_hop_limit (in, &shot, in->hop_value, false, out);
           return out->status = hs == AW_HOP_BAD_INPUT ? AW_ANALYSIS_BAD_INPUT
                                                       : AW_ANALYSIS_HOP_UNREACHABLE;
         }
@@ -980,10 +1097,12 @@ aw_analysis_solve (const AwAnalysisInput *in, AwBandResult *out)
         }
       if (zs != AW_ANALYSIS_OK)
         {
+          note_hop_limit (in, &shot, l, false, out);
           finish_result (&c, &shot, l, out);
           return out->status = zs;
         }
     }
+  note_hop_limit (in, &shot, l, false, out);
   return finish_result (&c, &shot, l, out);
 }
 

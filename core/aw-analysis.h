@@ -44,9 +44,13 @@ typedef struct
   double zero_distance_m;    /* NAN or ≤ 0: unset; the bore keeps shot.elevation_rad */
   bool optimise_elevation;   /* auto hop also chooses the bore elevation (zero must be unset) */
   AwAngleUnit angle_unit;
+  double hop_limit_s;        /* hop limit: the largest spin parameter S = r·ω⊥/V the hop-up gives
+                              * at the muzzle, whatever the BB (see "hop limit" below); NAN: no
+                              * limit. Build it with aw_hop_limit_s_for_lift_ratio. */
 } AwAnalysisInput;
 
-/* Defaults: aw_shot_init, auto hop, band ±0.15 m, no sight height, no zero, mrad. */
+/* Defaults: aw_shot_init, auto hop, band ±0.15 m, no sight height, no zero, mrad, no hop
+ * limit. */
 void aw_analysis_input_init (AwAnalysisInput *in);
 
 typedef enum
@@ -77,6 +81,7 @@ typedef enum
   AW_FIELD_POWER_CURVE,
   AW_FIELD_SITE,
   AW_FIELD_MASSES,             /* 1 … 64 masses, each 0.01 … 5 g */
+  AW_FIELD_HOP_LIMIT,          /* hop_limit_s: NAN (none) or 0 … 1000 */
 } AwAnalysisField;
 
 const char *aw_analysis_field_name (AwAnalysisField field);
@@ -106,6 +111,14 @@ typedef struct
   double apex_distance_m;
   double time_of_flight_s;
   int flights;                /* trajectories computed to reach this result */
+  /* the hop limit (all false / NAN when the input has none) */
+  double hop_limit_lift_ratio;/* the largest lift ratio the limit allows with this BB at this
+                               * speed (at the muzzle, bore elevation used); NAN: no limit */
+  bool hop_limited;           /* the limit shapes this result: auto hop ended at it (within
+                               * 0.2 %: a stronger hop-up would reach further, band_range_m is
+                               * the reduced one), or a given hop is above it (hop_over_limit) */
+  bool hop_over_limit;        /* a given lift ratio or spin is above what the limit allows: it is
+                               * flown as given (not clamped), but the hop-up cannot reach it */
 } AwBandResult;
 
 /* Band range of one shot as given (its spin and elevation; the hop mode and zero of `in` are
@@ -127,6 +140,28 @@ AwAnalysisStatus aw_auto_hop (const AwAnalysisInput *in, AwBandResult *out);
  * for the shot's spin. */
 AwAnalysisStatus aw_zero_elevation (const AwAnalysisInput *in, const AwShot *shot,
                                     double zero_distance_m, double *elevation_rad);
+
+/* ---- hop limit ----
+ *
+ * A real hop-up has a strongest setting. Modelling assumption, no source: at that setting a given
+ * hop-up gives at most the same spin parameter S = r·ω⊥/V at the muzzle whatever the BB (its
+ * spin scales with the muzzle speed). People state the limit as what they can see: the highest
+ * lift ratio the hop-up reaches with one BB (usually the setup's own) at its muzzle velocity.
+ * That ratio is converted once to S_max with the setup's lift model; any other BB then gets, at
+ * most, the lift ratio S_max gives with its own mass and speed. At a fixed S the Magnus force is
+ * ½ρA·V²·C_L(S), so the largest lift ratio scales with V²/m: a heavier BB at equal energy gets
+ * less (∝ 1/m²) and ends up under-hopped. */
+
+/* S_max of a hop-up whose strongest setting gives lift ratio max_lift_ratio with the BB and muzzle
+ * velocity of `own` (its diameter, hop tilt, wind, air and lift model too; elevation as given).
+ * When the lift model cannot reach that ratio within the engine's spin limit (1e5 rad/s), the S of
+ * that spin limit (the model's own ceiling, so the limit never binds). NAN when max_lift_ratio is
+ * NAN, negative or not finite, the shot is bad, or the lift model gives no lift. */
+double aw_hop_limit_s_for_lift_ratio (const AwShot *own, double max_lift_ratio);
+
+/* The largest lift ratio a hop limit allows with the BB and speed of `shot` (not capped by the
+ * engine's spin limit). NAN when hop_limit_s is NAN or the shot is bad. */
+double aw_hop_limit_lift_ratio (const AwShot *shot, double hop_limit_s);
 
 /* ---- range table ---- */
 
@@ -249,7 +284,10 @@ typedef struct
 } AwRecommendation;
 
 /* For each mass: velocity from the curve, auto hop, band range, drift at 30 m per 1 m/s,
- * energy and compliance. base supplies everything else (diameter, height, air, models, band). */
+ * energy and compliance. base supplies everything else (diameter, height, air, models, band).
+ * With base->hop_limit_s set, every mass gets the hop limit at its own speed (row band:
+ * hop_limit_lift_ratio, hop_limited and the reduced band range); without it the model hops
+ * every BB as well as needed, which favours heavy BBs. */
 AwAnalysisStatus aw_recommend (const AwAnalysisInput *base, const AwPowerCurve *curve,
                                const AwSiteClass *site, const double *masses_kg, size_t n_masses,
                                AwRecommendation *out);

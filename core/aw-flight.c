@@ -283,6 +283,30 @@ aw_shot_spin_for_lift_ratio (const AwShot *shot, double lift_ratio, double *spin
   return AW_HOP_OK;
 }
 
+double
+aw_shot_spin_parameter_for_spin (const AwShot *shot, double spin_rad_s)
+{
+  double sa, V;
+  if (aw_shot_validate (shot) != AW_SHOT_OK || !(spin_rad_s >= 0.0) || !isfinite (spin_rad_s))
+    return NAN;
+  muzzle_geometry (shot, &sa, &V);
+  if (!(V > 0.0))
+    return NAN;
+  return 0.5 * shot->diameter_m * spin_rad_s * sa / V;
+}
+
+double
+aw_shot_spin_for_spin_parameter (const AwShot *shot, double s)
+{
+  double sa, V;
+  if (aw_shot_validate (shot) != AW_SHOT_OK || !isfinite (s) || s < 0.0)
+    return NAN;
+  muzzle_geometry (shot, &sa, &V);
+  if (!(V > 0.0) || !(sa > 1e-9))
+    return NAN;
+  return s * V / (0.5 * shot->diameter_m * sa);
+}
+
 /* ---- integrator ---- */
 
 void

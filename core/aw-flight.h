@@ -92,6 +92,16 @@ double aw_shot_lift_ratio_for_spin (const AwShot *shot, double spin_rad_s);
 AwHopStatus aw_shot_spin_for_lift_ratio (const AwShot *shot, double lift_ratio,
                                          double *spin_rad_s);
 
+/* Spin parameter at the muzzle, S = r·ω⊥/V, for a muzzle spin: ω⊥ = ω·sin α is the part of the
+ * spin perpendicular to the air-relative velocity V (hop tilt, elevation and wind included).
+ * NAN on a bad shot or a negative spin. */
+double aw_shot_spin_parameter_for_spin (const AwShot *shot, double spin_rad_s);
+
+/* The muzzle spin giving spin parameter s: ω = s·V/(r·sin α). It is NOT capped at the engine's
+ * spin limit (compare with 1e5 rad/s before flying it). NAN on a bad shot, a negative or
+ * non-finite s, or when no spin gives a perpendicular part (sin α ≈ 0). */
+double aw_shot_spin_for_spin_parameter (const AwShot *shot, double s);
+
 /* ---- Integration ---- */
 
 typedef enum

@@ -152,6 +152,17 @@ aw_setup_to_analysis_input (AwSetup *setup, const AwProject *project, AwAnalysis
   in->sight_height_m = setup->sighting.sight_height_m;
   in->zero_distance_m = setup->sighting.zero_distance_m;
   in->angle_unit = setup->sighting.angle_unit;
+
+  /* the hop limit, stated with the setup's own BB at its own velocity, as a spin parameter
+   * (modelling assumption, no source: the same for every BB) */
+  if (!isnan (setup->hop.max_lift_ratio))
+    {
+      if (!isfinite (setup->hop.max_lift_ratio) || setup->hop.max_lift_ratio < 0.0)
+        return AW_BRIDGE_BAD_INPUT;
+      AwShot own = *shot;
+      own.spin_rad_s = 0.0;
+      in->hop_limit_s = aw_hop_limit_s_for_lift_ratio (&own, setup->hop.max_lift_ratio);
+    }
   return AW_BRIDGE_OK;
 }
 

@@ -715,7 +715,7 @@ static const char *const replica_known[] = {
 static const char *const reference_known[] = { "mass_g", "velocity_mps", NULL };
 static const char *const point_known[] = { "mass_g", "velocity_mps", NULL };
 static const char *const bb_known[] = { "mass_g", "diameter_mm", NULL };
-static const char *const hop_known[] = { "mode", "value", "tilt_deg", NULL };
+static const char *const hop_known[] = { "mode", "value", "tilt_deg", "max_lift_ratio", NULL };
 static const char *const sighting_known[] = {
   "sight_height_m", "zero_distance_m", "angle_unit", NULL
 };
@@ -1019,6 +1019,9 @@ parse_setup (Ctx *ctx, JsonNode *node, const char *path)
           break;
         }
       read_number (ctx, ho, hp, "tilt_deg", OPTIONAL, -90, 90, "degrees", &s->hop.tilt_deg);
+      /* the hop limit: absent = none (modelling assumption, no source: see aw-project.h) */
+      read_number (ctx, ho, hp, "max_lift_ratio", OPTIONAL, AW_HOP_MAX_LIFT_RATIO_MIN,
+                   AW_HOP_MAX_LIFT_RATIO_MAX, "", &s->hop.max_lift_ratio);
       s->hop.extra = collect_extra (ho, hop_known);
       g_free (hp);
     }
@@ -1512,6 +1515,8 @@ setup_to_json (const AwSetup *s)
   json_object_set_string_member (ho, "mode", hm ? hm : "?");
   set_num (ho, "value", s->hop.value);
   set_num (ho, "tilt_deg", s->hop.tilt_deg);
+  if (!isnan (s->hop.max_lift_ratio))
+    set_num (ho, "max_lift_ratio", s->hop.max_lift_ratio);
   add_extra (ho, s->hop.extra);
   json_object_set_object_member (o, "hop", ho);
 

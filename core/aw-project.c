@@ -490,6 +490,7 @@ aw_setup_new (const char *name)
   s->hop.mode = AW_HOP_MODE_AUTO;
   s->hop.value = 0.0;
   s->hop.tilt_deg = 0.0;
+  s->hop.max_lift_ratio = NAN;
   s->sighting.sight_height_m = 0.07;
   s->sighting.zero_distance_m = NAN;
   s->sighting.angle_unit = AW_ANGLE_MRAD;
@@ -568,6 +569,7 @@ aw_setup_equal (const AwSetup *a, const AwSetup *b)
     return false;
   if (!(a->hop.mode == b->hop.mode && num_eq (a->hop.value, b->hop.value)
         && num_eq (a->hop.tilt_deg, b->hop.tilt_deg)
+        && num_eq (a->hop.max_lift_ratio, b->hop.max_lift_ratio)
         && aw_json_object_equal (a->hop.extra, b->hop.extra)))
     return false;
   if (!(num_eq (a->sighting.sight_height_m, b->sighting.sight_height_m)

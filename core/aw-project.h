@@ -103,14 +103,25 @@ typedef struct _AwBB
 } AwBB;
 
 /* Hop as stored: AW_HOP_MODE_AUTO (value unused), AW_HOP_MODE_LIFT_RATIO (value = lift ratio at
- * the muzzle), AW_HOP_MODE_SPIN (value = model spin in rpm — not rad/s as in AwAnalysisInput). */
+ * the muzzle), AW_HOP_MODE_SPIN (value = model spin in rpm — not rad/s as in AwAnalysisInput).
+ *
+ * max_lift_ratio is the hop limit: the highest lift ratio the hop-up reaches at its strongest
+ * setting with the setup's own BB at its own muzzle velocity (file member "max_lift_ratio",
+ * 0.1 … 20; NAN = no limit, not written). aw_setup_to_analysis_input turns it into
+ * AwAnalysisInput.hop_limit_s (modelling assumption, no source: the same hop-up gives at most the
+ * same spin parameter S = r·ω⊥/V at the muzzle whatever the BB). Editors read and write it
+ * directly; NAN clears it. */
 typedef struct _AwHop
 {
   AwHopMode mode;                   /* default auto */
   double value;                     /* default 0 for auto, else as given */
   double tilt_deg;                  /* spin-axis roll, positive curves right; default 0 */
+  double max_lift_ratio;            /* hop limit, see above; default NAN (none) */
   JsonObject *extra;
 } AwHop;
+
+#define AW_HOP_MAX_LIFT_RATIO_MIN 0.1
+#define AW_HOP_MAX_LIFT_RATIO_MAX 20.0
 
 typedef struct _AwSighting
 {
@@ -349,7 +360,10 @@ void aw_setup_power_curve (AwSetup *setup, AwPowerCurve *curve);
 /* Setup + conditions → analysis input: BB mass/diameter, muzzle velocity for the setup's BB from
  * the replica's power curve, muzzle height, hop tilt, wind, air, aero model and multipliers,
  * hop mode and value (rpm → rad/s), band, sight height, zero and angle unit. shot.spin_rad_s is
- * the spin for AW_HOP_MODE_SPIN, else 0; shot.elevation_rad is 0. */
+ * the spin for AW_HOP_MODE_SPIN, else 0; shot.elevation_rad is 0. The hop limit
+ * (hop.max_lift_ratio) becomes hop_limit_s through aw_hop_limit_s_for_lift_ratio on that very
+ * shot (the setup's own BB, velocity, air and lift model); NAN when unset or when the lift model
+ * gives no lift. */
 AwBridgeStatus aw_setup_to_analysis_input (AwSetup *setup, const AwProject *project,
                                            AwAnalysisInput *in);
 

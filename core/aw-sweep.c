@@ -515,6 +515,7 @@ aw_sweep_eval_point (const AwSweepSetup *setup, const AwSweepDesc *desc, double 
   out->lift_ratio = band.lift_ratio;
   out->spin_rad_s = band.spin_rad_s;
   out->elevation_rad = band.elevation_rad;
+  out->hop_limited = band.hop_limited;
   out->values[AW_SWEEP_METRIC_BAND_RANGE] = band.band_range_m;
   out->values[AW_SWEEP_METRIC_GROUND_DISTANCE] = band.ground_distance_m;
   out->values[AW_SWEEP_METRIC_APEX] = band.apex_height_m;

@@ -104,7 +104,9 @@ double aw_sweep_axis_value (const AwSweepAxis *axis, guint i);
 typedef struct
 {
   const char *name;          /* borrowed; copied by aw_sweep_run */
-  AwAnalysisInput input;     /* the setup's analysis input at its own BB and conditions */
+  AwAnalysisInput input;     /* the setup's analysis input at its own BB and conditions; its
+                              * hop_limit_s (a spin parameter, the same for every BB) applies at
+                              * every point */
   AwPowerCurve power;        /* energy versus BB mass; ref_mass_kg ≤ 0 (and not measured): constant
                               * energy through the input's BB mass and velocity. points borrowed */
   AwConditions conditions;   /* the conditions input.shot.air came from (temperature sweeps) */
@@ -134,6 +136,9 @@ typedef struct
   double lift_ratio;
   double spin_rad_s;
   double elevation_rad;
+  gboolean hop_limited;      /* the setup's hop limit (input.hop_limit_s) shapes this point: auto
+                              * hop held at it (e.g. a heavy BB in a mass sweep, which gets the
+                              * limit at its own speed), or a given hop above it */
 } AwSweepPoint;
 
 /* Evaluates one point: the setup with the values v1 (axis 0) and v2 (axis 1, ignored for a

@@ -1169,6 +1169,423 @@ test_cli_bad_input (void)
     }
 }
 
+/* ---- hop limit ----
+ *
+ * The hop limit rests on a modelling assumption, no source: a hop-up at its strongest setting
+ * gives at most the same spin parameter S = r·ω⊥/V at the muzzle whatever the BB mass. The checks
+ * below test the conversion and its consequences against closed forms, not the assumption. */
+
+#define HOP_OWN_MASS_KG 0.25e-3
+#define HOP_OWN_ENERGY_J 1.39
+
+/* 0.25 g at 1.39 J, level from 1.5 m, no wind: the reference BB of the tests below. */
+static void
+hop_own_input (AwAnalysisInput *in)
+{
+  aw_analysis_input_init (in);
+  in->shot.mass_kg = HOP_OWN_MASS_KG;
+  in->shot.velocity_mps = aw_velocity_for_energy (HOP_OWN_MASS_KG, HOP_OWN_ENERGY_J);
+}
+
+/* Compares two band results field by field, bit for bit (the flights counter included). */
+static void
+assert_band_identical (const AwBandResult *a, const AwBandResult *b)
+{
+  g_assert_cmpint (a->status, ==, b->status);
+  g_assert_cmpint (a->flights, ==, b->flights);
+  g_assert_true (memcmp (&a->lift_ratio, &b->lift_ratio, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->spin_rad_s, &b->spin_rad_s, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->elevation_rad, &b->elevation_rad, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->band_near_m, &b->band_near_m, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->band_range_m, &b->band_range_m, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->ground_distance_m, &b->ground_distance_m, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->apex_height_m, &b->apex_height_m, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->apex_distance_m, &b->apex_distance_m, sizeof (double)) == 0);
+  g_assert_true (memcmp (&a->time_of_flight_s, &b->time_of_flight_s, sizeof (double)) == 0);
+  g_assert_true (a->hop_limited == b->hop_limited);
+}
+
+/* The limit, stated as a lift ratio with the setup's own BB, converts to S_max and back to the
+ * same ratio for that BB; S_max is r·ω·sin α/V of the spin that gives the ratio (level bore, no
+ * wind: sin α = 1; with a crosswind w: sin α = v/√(v² + w²), V = √(v² + w²)). Closed forms of the
+ * definitions; the premise is a modelling assumption, no source. */
+static void
+test_hop_limit_round_trip (void)
+{
+  AwAnalysisInput in;
+  const double ratios[] = { 0.1, 0.8, 1.0, 2.5, 6.0, 20.0 };
+  const AwLiftModel models[] = { AW_LIFT_SATURATING, AW_LIFT_LINEAR };
+
+  hop_own_input (&in);
+  g_assert_true (isnan (in.hop_limit_s));   /* aw_analysis_input_init: no limit */
+  for (guint k = 0; k < G_N_ELEMENTS (models); k++)
+    for (guint wind = 0; wind < 2; wind++)
+      for (guint i = 0; i < G_N_ELEMENTS (ratios); i++)
+        {
+          AwShot own = in.shot;
+          double w, s_max, v = own.velocity_mps, r = 0.5 * own.diameter_m;
+          own.aero.lift = models[k];
+          own.wind[1] = wind ? 4.0 : 0.0;
+          if (aw_shot_spin_for_lift_ratio (&own, ratios[i], &w) != AW_HOP_OK)
+            continue;   /* beyond the model's reach: see below */
+          s_max = aw_hop_limit_s_for_lift_ratio (&own, ratios[i]);
+          double vr2 = v * v + own.wind[1] * own.wind[1];
+          double s_closed = r * w * (v / sqrt (vr2)) / sqrt (vr2);
+          g_assert_cmpfloat (fabs (s_max - s_closed), <=, 1e-13 * s_closed);
+          g_assert_cmpfloat (fabs (aw_shot_spin_parameter_for_spin (&own, w) - s_closed), <=,
+                             1e-13 * s_closed);
+          g_assert_cmpfloat (fabs (aw_shot_spin_for_spin_parameter (&own, s_max) - w), <=,
+                             1e-12 * w);
+          /* back to the same lift ratio with the same BB */
+          g_assert_cmpfloat (fabs (aw_hop_limit_lift_ratio (&own, s_max) - ratios[i]), <=,
+                             1e-12 * ratios[i]);
+        }
+
+  /* a ratio the saturating model cannot reach within the spin limit: its own ceiling */
+  {
+    AwShot own = in.shot;
+    double s = aw_hop_limit_s_for_lift_ratio (&own, 20.0 * 40.0);
+    g_assert_cmpfloat (fabs (s - aw_shot_spin_parameter_for_spin (&own, 1e5)), <=, 1e-15);
+  }
+  /* no limit, no lift, bad input: NAN */
+  g_assert_true (isnan (aw_hop_limit_s_for_lift_ratio (&in.shot, NAN)));
+  g_assert_true (isnan (aw_hop_limit_s_for_lift_ratio (&in.shot, -1.0)));
+  g_assert_true (isnan (aw_hop_limit_lift_ratio (&in.shot, NAN)));
+  {
+    AwShot off = in.shot;
+    off.aero.lift = AW_LIFT_OFF;
+    g_assert_true (isnan (aw_hop_limit_s_for_lift_ratio (&off, 2.5)));
+    off = in.shot;
+    off.velocity_mps = 0.0;
+    g_assert_true (isnan (aw_hop_limit_s_for_lift_ratio (&off, 2.5)));
+  }
+  /* the analysis refuses a broken limit and names it */
+  {
+    AwBandResult b;
+    in.hop_limit_s = -0.1;
+    g_assert_cmpint (aw_analysis_solve (&in, &b), ==, AW_ANALYSIS_BAD_INPUT);
+    g_assert_cmpint (b.bad_field, ==, AW_FIELD_HOP_LIMIT);
+    in.hop_limit_s = INFINITY;
+    g_assert_cmpint (aw_analysis_solve (&in, &b), ==, AW_ANALYSIS_BAD_INPUT);
+    g_assert_cmpint (b.bad_field, ==, AW_FIELD_HOP_LIMIT);
+    g_assert_cmpstr (aw_analysis_field_name (AW_FIELD_HOP_LIMIT), ==, "hop-limit");
+  }
+}
+
+/* At a fixed S the Magnus force is ½ρA·V²·C_L(S), so the lift ratio the limit allows scales with
+ * V²/m: at equal energy (V² ∝ 1/m) as (m_own/m)², heavier BBs getting less. Closed form (CALC from
+ * the lift definition in physics.md); the premise is a modelling assumption, no source. */
+static void
+test_hop_limit_scaling (void)
+{
+  AwAnalysisInput in;
+  const double masses_g[] = { 0.20, 0.23, 0.25, 0.28, 0.30, 0.32, 0.36, 0.40, 0.43, 0.45, 0.48 };
+  const AwLiftModel models[] = { AW_LIFT_SATURATING, AW_LIFT_LINEAR, AW_LIFT_SHS };
+
+  hop_own_input (&in);
+  for (guint k = 0; k < G_N_ELEMENTS (models); k++)
+    {
+      AwShot own = in.shot;
+      own.aero.lift = models[k];
+      double s_max = aw_hop_limit_s_for_lift_ratio (&own, 2.5);
+      double prev = INFINITY;
+      g_assert_true (isfinite (s_max) && s_max > 0.0);
+      for (guint i = 0; i < G_N_ELEMENTS (masses_g); i++)
+        {
+          AwShot s = own;
+          s.mass_kg = aw_g_to_kg (masses_g[i]);
+          s.velocity_mps = aw_velocity_for_energy (s.mass_kg, HOP_OWN_ENERGY_J);
+          double l = aw_hop_limit_lift_ratio (&s, s_max);
+          double v2_over_m = s.velocity_mps * s.velocity_mps / s.mass_kg;
+          double v2_over_m_own = own.velocity_mps * own.velocity_mps / own.mass_kg;
+          double closed = 2.5 * v2_over_m / v2_over_m_own;
+          double equal_energy = 2.5 * pow (HOP_OWN_MASS_KG / s.mass_kg, 2.0);
+          g_assert_cmpfloat (fabs (l - closed), <=, 1e-12 * closed);
+          g_assert_cmpfloat (fabs (l - equal_energy), <=, 1e-9 * equal_energy);
+          g_assert_cmpfloat (l, <, prev);   /* heavier: less */
+          prev = l;
+        }
+      /* constant velocity: ∝ 1/m */
+      AwShot heavy = own;
+      heavy.mass_kg = 0.40e-3;
+      double l = aw_hop_limit_lift_ratio (&heavy, s_max);
+      g_assert_cmpfloat (fabs (l - 2.5 * 0.25 / 0.40), <=, 1e-12 * l);
+    }
+}
+
+/* Auto hop never goes past the limit. Where the limit is below the best hop it ends on it and
+ * says so, with a shorter band range than unlimited; where the limit is well above the best hop
+ * nothing is flagged and the band range is the unlimited one. Level bore without a zero (the
+ * apex criterion), with a zero, and with the bore elevation optimised. Definitions in
+ * aw-analysis.h; premise: modelling assumption, no source. */
+static void
+test_hop_limit_auto_hop (void)
+{
+  for (int variant = 0; variant < 3; variant++)
+    {
+      AwAnalysisInput in;
+      hop_own_input (&in);
+      if (variant == 1)
+        {
+          in.sight_height_m = 0.07;
+          in.zero_distance_m = 30.0;
+        }
+      else if (variant == 2)
+        in.optimise_elevation = true;
+      double s_max = aw_hop_limit_s_for_lift_ratio (&in.shot, 2.5);
+
+      /* the heavy BB: under-hopped */
+      AwAnalysisInput heavy = in;
+      heavy.shot.mass_kg = 0.45e-3;
+      heavy.shot.velocity_mps = aw_velocity_for_energy (heavy.shot.mass_kg, HOP_OWN_ENERGY_J);
+      AwBandResult free_b, lim_b;
+      g_assert_cmpint (aw_auto_hop (&heavy, &free_b), ==, AW_ANALYSIS_OK);
+      g_assert_false (free_b.hop_limited);
+      g_assert_true (isnan (free_b.hop_limit_lift_ratio));
+      heavy.hop_limit_s = s_max;
+      g_assert_cmpint (aw_analysis_solve (&heavy, &lim_b), ==, AW_ANALYSIS_OK);
+      double cap = 2.5 * pow (0.25 / 0.45, 2.0);
+      g_test_message ("variant %d: 0.45 g unlimited ratio %.3f range %.2f m; limit %.3f: ratio "
+                      "%.3f range %.2f m", variant, free_b.lift_ratio, free_b.band_range_m, cap,
+                      lim_b.lift_ratio, lim_b.band_range_m);
+      g_assert_cmpfloat (free_b.lift_ratio, >, cap);   /* the limit matters here */
+      g_assert_cmpfloat (fabs (lim_b.hop_limit_lift_ratio - cap), <=, 1e-6 * cap);
+      g_assert_cmpfloat (lim_b.lift_ratio, <=, lim_b.hop_limit_lift_ratio * (1.0 + 1e-12));
+      g_assert_true (lim_b.hop_limited);
+      g_assert_false (lim_b.hop_over_limit);
+      g_assert_cmpfloat (lim_b.band_range_m, <, free_b.band_range_m);
+      /* the spin flown gives at most S_max */
+      g_assert_cmpfloat (aw_shot_spin_parameter_for_spin (&heavy.shot, lim_b.spin_rad_s), <=,
+                         s_max * (1.0 + 1e-9));
+
+      /* the light BB with a limit well above its best hop (1.3 times it) */
+      AwAnalysisInput light = in;
+      light.shot.mass_kg = 0.20e-3;
+      light.shot.velocity_mps = aw_velocity_for_energy (light.shot.mass_kg, HOP_OWN_ENERGY_J);
+      g_assert_cmpint (aw_auto_hop (&light, &free_b), ==, AW_ANALYSIS_OK);
+      light.hop_limit_s = aw_hop_limit_s_for_lift_ratio (&light.shot, 1.3 * free_b.lift_ratio);
+      g_assert_cmpint (aw_auto_hop (&light, &lim_b), ==, AW_ANALYSIS_OK);
+      g_assert_cmpfloat (fabs (lim_b.hop_limit_lift_ratio - 1.3 * free_b.lift_ratio), <=,
+                         1e-9 * lim_b.hop_limit_lift_ratio);
+      g_assert_false (lim_b.hop_limited);
+      g_assert_cmpfloat (lim_b.lift_ratio, <=, lim_b.hop_limit_lift_ratio);
+      /* the same optimum (the search grid may differ a little when the limit trims it) */
+      g_assert_cmpfloat (fabs (lim_b.band_range_m - free_b.band_range_m), <, 0.05);
+    }
+}
+
+/* A hop given as a lift ratio or a spin is flown as given, never clamped; above the limit it is
+ * flagged. The same flight as without a limit, bit for bit. Definitions in aw-analysis.h. */
+static void
+test_hop_limit_manual (void)
+{
+  AwAnalysisInput in;
+  AwBandResult free_b, lim_b;
+
+  hop_own_input (&in);
+  in.hop_mode = AW_HOP_MODE_LIFT_RATIO;
+  double s_max = aw_hop_limit_s_for_lift_ratio (&in.shot, 1.2);
+  const double asked[] = { 0.9, 1.2, 1.5 };
+  for (guint i = 0; i < G_N_ELEMENTS (asked); i++)
+    {
+      in.hop_value = asked[i];
+      in.hop_limit_s = NAN;
+      g_assert_cmpint (aw_analysis_solve (&in, &free_b), ==, AW_ANALYSIS_OK);
+      in.hop_limit_s = s_max;
+      g_assert_cmpint (aw_analysis_solve (&in, &lim_b), ==, AW_ANALYSIS_OK);
+      g_assert_cmpfloat (lim_b.lift_ratio, ==, asked[i]);
+      g_assert_true (memcmp (&lim_b.band_range_m, &free_b.band_range_m, sizeof (double)) == 0);
+      g_assert_true (memcmp (&lim_b.spin_rad_s, &free_b.spin_rad_s, sizeof (double)) == 0);
+      g_assert_cmpfloat (fabs (lim_b.hop_limit_lift_ratio - 1.2), <=, 1e-12);
+      /* at the limit itself: not over (the round trip is exact to rounding) */
+      g_assert_true (lim_b.hop_over_limit == (asked[i] > 1.2));
+      g_assert_true (lim_b.hop_limited == (asked[i] > 1.2));
+      g_assert_false (free_b.hop_over_limit || free_b.hop_limited);
+    }
+  /* a spin: above the limit when its S is */
+  in.hop_mode = AW_HOP_MODE_SPIN;
+  double w_lim = aw_shot_spin_for_spin_parameter (&in.shot, s_max);
+  in.hop_value = 1.05 * w_lim;
+  in.shot.spin_rad_s = in.hop_value;
+  g_assert_cmpint (aw_analysis_solve (&in, &lim_b), ==, AW_ANALYSIS_OK);
+  g_assert_true (lim_b.hop_over_limit && lim_b.hop_limited);
+  g_assert_cmpfloat (lim_b.spin_rad_s, ==, 1.05 * w_lim);
+  in.hop_value = 0.95 * w_lim;
+  in.shot.spin_rad_s = in.hop_value;
+  g_assert_cmpint (aw_analysis_solve (&in, &lim_b), ==, AW_ANALYSIS_OK);
+  g_assert_false (lim_b.hop_over_limit || lim_b.hop_limited);
+  /* and a shot flown as it is */
+  AwShot s = in.shot;
+  s.spin_rad_s = 1.5 * w_lim;
+  g_assert_cmpint (aw_band_of_shot (&in, &s, &lim_b), ==, AW_ANALYSIS_OK);
+  g_assert_true (lim_b.hop_over_limit);
+}
+
+/* With a hop limit of lift ratio 2.5 for a 0.25 g BB at 1.39 J (constant energy), the
+ * recommendation over the usual BB masses is no longer the heaviest and lies in 0.25 … 0.32 g:
+ * the trade's rule of thumb for 1 … 1.5 J is about 0.25 g (common practice, no source). Each row
+ * gets the limit at its own speed (closed form (0.25/m)²·2.5), and the limited rows are flagged. */
+static void
+test_hop_limit_recommend (void)
+{
+  AwAnalysisInput in;
+  AwPowerCurve c = { AW_POWER_CONSTANT_ENERGY, HOP_OWN_MASS_KG, 0.0, 0.0, NULL, 0 };
+  const double masses_g[] = { 0.20, 0.23, 0.25, 0.28, 0.30, 0.32, 0.36, 0.40, 0.43, 0.45, 0.48 };
+  double masses[G_N_ELEMENTS (masses_g)];
+  AwRecommendation free_r, lim_r;
+
+  for (guint i = 0; i < G_N_ELEMENTS (masses_g); i++)
+    masses[i] = aw_g_to_kg (masses_g[i]);
+  for (int zero = 0; zero < 2; zero++)
+    {
+      hop_own_input (&in);
+      if (zero)
+        {
+          in.sight_height_m = 0.07;
+          in.zero_distance_m = 30.0;
+        }
+      c.ref_velocity_mps = in.shot.velocity_mps;
+      g_assert_cmpint (aw_recommend (&in, &c, NULL, masses, G_N_ELEMENTS (masses), &free_r), ==,
+                       AW_ANALYSIS_OK);
+      in.hop_limit_s = aw_hop_limit_s_for_lift_ratio (&in.shot, 2.5);
+      g_assert_cmpint (aw_recommend (&in, &c, NULL, masses, G_N_ELEMENTS (masses), &lim_r), ==,
+                       AW_ANALYSIS_OK);
+      g_assert_cmpint (lim_r.best, >=, 0);
+      double best_g = aw_kg_to_g (lim_r.rows[lim_r.best].mass_kg);
+      g_test_message ("%s: recommended %.2f g without a limit, %.2f g with it",
+                      zero ? "zero 30 m" : "level bore",
+                      aw_kg_to_g (free_r.rows[free_r.best].mass_kg), best_g);
+      g_assert_cmpint (lim_r.best, !=, (int) G_N_ELEMENTS (masses) - 1);
+      g_assert_cmpfloat (best_g, >=, 0.25 - 1e-9);
+      g_assert_cmpfloat (best_g, <=, 0.32 + 1e-9);
+      int n_limited = 0;
+      for (size_t i = 0; i < lim_r.n_rows; i++)
+        {
+          const AwRecommendRow *r = &lim_r.rows[i];
+          double cap = 2.5 * pow (0.25 / masses_g[i], 2.0);
+          g_assert_cmpfloat (fabs (r->band.hop_limit_lift_ratio - cap), <=, 1e-9 * cap);
+          g_assert_cmpfloat (r->band.lift_ratio, <=, cap * (1.0 + 1e-9));
+          if (r->band.hop_limited)
+            {
+              n_limited++;
+              g_assert_cmpfloat (r->band.lift_ratio, >=, cap * (1.0 - 2e-3));
+              /* under-hopped: shorter than with an unlimited hop-up */
+              g_assert_cmpfloat (r->band.band_range_m, <, free_r.rows[i].band.band_range_m);
+            }
+          /* the same energy, velocity and drift rules as without a limit */
+          g_assert_cmpfloat (r->velocity_mps, ==, free_r.rows[i].velocity_mps);
+          g_assert_false (free_r.rows[i].band.hop_limited);
+        }
+      /* the heaviest BBs are the limited ones */
+      g_assert_true (lim_r.rows[lim_r.n_rows - 1].band.hop_limited);
+      g_assert_false (lim_r.rows[0].band.hop_limited);
+      g_assert_cmpint (n_limited, >=, 3);
+      aw_recommendation_clear (&free_r);
+      aw_recommendation_clear (&lim_r);
+    }
+}
+
+/* Without a limit nothing changes: aw_recommend with NAN gives, bit for bit, what auto hop gives
+ * each mass alone (how the recommendation always worked), and a limit beyond the model's own reach
+ * (S = 1000) gives the very same bits again. Definitions in aw-analysis.h. */
+static void
+test_hop_limit_none_identical (void)
+{
+  AwAnalysisInput in;
+  AwPowerCurve c = { AW_POWER_CREEP, 0.20e-3, 0.0, 8.0, NULL, 0 };
+  AwSiteClass site = { 1.49, 0.20e-3, NAN };
+  const double masses[] = { 0.20e-3, 0.25e-3, 0.32e-3, 0.40e-3, 0.48e-3 };
+  AwRecommendation a, b;
+
+  for (int zero = 0; zero < 2; zero++)
+    {
+      hop_own_input (&in);
+      in.shot.wind[1] = 1.5;
+      if (zero)
+        {
+          in.sight_height_m = 0.07;
+          in.zero_distance_m = 25.0;
+        }
+      c.ref_velocity_mps = aw_velocity_for_energy (0.20e-3, 1.2);
+      g_assert_true (isnan (in.hop_limit_s));
+      g_assert_cmpint (aw_recommend (&in, &c, &site, masses, G_N_ELEMENTS (masses), &a), ==,
+                       AW_ANALYSIS_OK);
+      for (size_t i = 0; i < a.n_rows; i++)
+        {
+          AwAnalysisInput one = in;
+          AwBandResult alone;
+          one.shot.mass_kg = masses[i];
+          one.shot.velocity_mps = aw_power_velocity_for_mass (&c, masses[i]);
+          aw_auto_hop (&one, &alone);
+          assert_band_identical (&a.rows[i].band, &alone);
+          g_assert_false (a.rows[i].band.hop_limited || a.rows[i].band.hop_over_limit);
+          g_assert_true (isnan (a.rows[i].band.hop_limit_lift_ratio));
+        }
+      in.hop_limit_s = 1000.0;
+      g_assert_cmpint (aw_recommend (&in, &c, &site, masses, G_N_ELEMENTS (masses), &b), ==,
+                       AW_ANALYSIS_OK);
+      g_assert_cmpint (a.best, ==, b.best);
+      g_assert_cmpint (a.reason, ==, b.reason);
+      for (size_t i = 0; i < a.n_rows; i++)
+        {
+          assert_band_identical (&a.rows[i].band, &b.rows[i].band);
+          g_assert_true (memcmp (&a.rows[i].drift_30m_cm_per_mps, &b.rows[i].drift_30m_cm_per_mps,
+                                 sizeof (double)) == 0);
+          g_assert_true (isfinite (b.rows[i].band.hop_limit_lift_ratio));
+        }
+      aw_recommendation_clear (&a);
+      aw_recommendation_clear (&b);
+    }
+}
+
+/* recommend on the command line: without a limit the text says that every BB is hopped as well
+ * as it needs (which favours heavy BBs); with --hop-limit the limited masses are marked and the
+ * JSON rows carry the flag. Source: the command-line contract. */
+static void
+test_cli_hop_limit (void)
+{
+  int st;
+  g_autofree char *err = NULL, *err2 = NULL, *err3 = NULL, *err4 = NULL;
+  g_autofree char *out = run_cli ("recommend --mass-g 0.25 --energy-j 1.39", &st, &err);
+  if (out == NULL)
+    {
+      g_test_skip ("AW_CLI not set");
+      return;
+    }
+  g_assert_cmpint (st, ==, 0);
+  g_assert_nonnull (strstr (out, "No hop limit given"));
+  g_assert_nonnull (strstr (out, "favours"));
+  g_assert_null (strstr (out, "hop-limited"));
+
+  g_autofree char *out2 = run_cli ("recommend --mass-g 0.25 --energy-j 1.39 --hop-limit 2.5",
+                                   &st, &err2);
+  g_assert_cmpint (st, ==, 0);
+  g_assert_null (strstr (out2, "No hop limit given"));
+  g_assert_nonnull (strstr (out2, "Hop limit: lift ratio 2.50"));
+  g_assert_nonnull (strstr (out2, "hop-limited"));
+
+  g_autofree char *out3 = run_cli ("recommend --mass-g 0.25 --energy-j 1.39 --hop-limit 2.5 "
+                                   "--format json", &st, &err3);
+  g_assert_cmpint (st, ==, 0);
+  g_autoptr (JsonParser) p = json_parser_new ();
+  g_assert_true (json_parser_load_from_data (p, out3, -1, NULL));
+  JsonObject *root = json_node_get_object (json_parser_get_root (p));
+  JsonObject *sum = json_object_get_object_member (root, "summary");
+  g_assert_cmpfloat (json_object_get_double_member (sum, "hop_limit_lift_ratio"), ==, 2.5);
+  g_assert_cmpfloat (json_object_get_double_member (sum, "best_mass_g"), <, 0.48);
+  JsonArray *rows = json_object_get_array_member (root, "rows");
+  JsonObject *last = json_array_get_object_element (rows, json_array_get_length (rows) - 1);
+  g_assert_true (json_object_get_boolean_member (last, "hop_limited"));
+  double cap = json_object_get_double_member (last, "hop_limit_lift_ratio");
+  g_assert_cmpfloat (fabs (cap - 2.5 * pow (0.25 / 0.48, 2.0)), <, 1e-6);
+
+  g_autofree char *out4 = run_cli ("recommend --mass-g 0.25 --energy-j 1.39 --hop-limit 40",
+                                   &st, &err4);
+  g_assert_cmpint (st, ==, 2);
+  g_assert_nonnull (strstr (err4, "--hop-limit"));
+  g_assert_cmpstr (out4, ==, "");
+}
+
 int
 main (int argc, char **argv)
 {
@@ -1200,5 +1617,12 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/cli/caution", test_cli_text_caution);
   g_test_add_func ("/analysis/cli/bad-input", test_cli_bad_input);
   g_test_add_func ("/analysis/cli/project", test_cli_project);
+  g_test_add_func ("/analysis/hop-limit/round-trip", test_hop_limit_round_trip);
+  g_test_add_func ("/analysis/hop-limit/scaling", test_hop_limit_scaling);
+  g_test_add_func ("/analysis/hop-limit/auto-hop", test_hop_limit_auto_hop);
+  g_test_add_func ("/analysis/hop-limit/manual", test_hop_limit_manual);
+  g_test_add_func ("/analysis/hop-limit/recommend", test_hop_limit_recommend);
+  g_test_add_func ("/analysis/hop-limit/none-identical", test_hop_limit_none_identical);
+  g_test_add_func ("/analysis/cli/hop-limit", test_cli_hop_limit);
   return g_test_run ();
 }

@@ -726,6 +726,33 @@ add_compliance (AwPlFlowDoc *doc, AwPrintJob *job, const AwPrintSetup *ps)
   }
 }
 
+/* Whether the setup has a hop limit the analysis uses. */
+static gboolean
+has_hop_limit (const AwPrintSetup *ps)
+{
+  return !isnan (ps->setup->hop.max_lift_ratio) && !isnan (ps->in.hop_limit_s);
+}
+
+/* The hop limit line of the recommendation, or the note that there is none. Modelling
+ * assumption, no source: a hop-up's strongest setting gives every BB the same spin parameter. */
+static char *
+hop_limit_text (const AwPrintSetup *ps)
+{
+  if (has_hop_limit (ps))
+    {
+      g_autofree char *lr = aw_pl_num (ps->setup->hop.max_lift_ratio, 2);
+      g_autofree char *bb = aw_pl_num_unit (aw_kg_to_g (ps->in.shot.mass_kg), 2, "g");
+      /* TRANSLATORS: the hop limit on the setup sheet: lift ratio, BB mass */
+      return g_strdup_printf (_("lift ratio %s at most with the %s BB (the hop-up’s strongest "
+                                "setting). Every BB is taken to get the same spin parameter "
+                                "there (a modelling assumption), so heavier, slower BBs get "
+                                "less lift."), lr, bb);
+    }
+  return g_strdup (_("none given: every BB is taken as hopped as well as it needs, which "
+                     "favours heavy BBs. Set the highest lift ratio the hop-up reaches for a "
+                     "sounder recommendation."));
+}
+
 static void
 add_recommendation (AwPlFlowDoc *doc, AwPrintJob *job, const AwPrintSetup *ps)
 {
@@ -753,6 +780,9 @@ add_recommendation (AwPlFlowDoc *doc, AwPrintJob *job, const AwPrintSetup *ps)
                                              half, lr);
       aw_pl_box_add (box, _("Recommended BB"), t);
       aw_pl_box_add (box, _("With that BB"), t2);
+      if (r->band.hop_limited)
+        aw_pl_box_add (box, NULL, _("That BB is held at the hop limit: the hop-up cannot lift it "
+                                    "as much as it needs."));
       if (isfinite (r->drift_30m_cm_per_mps))
         {
           AwUnitSystem u = aw_print_job_unit_system (job);
@@ -771,6 +801,10 @@ add_recommendation (AwPlFlowDoc *doc, AwPrintJob *job, const AwPrintSetup *ps)
                    job->site_class ? _("none: no BB mass keeps this replica inside the limit")
                                    : _("none could be computed"));
   {
+    g_autofree char *hl = hop_limit_text (ps);
+    aw_pl_box_add (box, _("Hop limit"), hl);
+  }
+  {
     g_autofree char *hop = aw_print_hop_text (ps);
     g_autofree char *range = aw_print_qty (job, AW_QTY_DISTANCE, b->band_range_m);
     /* TRANSLATORS: the setup as configured: BB mass, hop, band range and band half-height */
@@ -780,6 +814,9 @@ add_recommendation (AwPlFlowDoc *doc, AwPrintJob *job, const AwPrintSetup *ps)
                          : g_strdup_printf (_("%s, hop %s: %s"), bb, hop,
                                             aw_print_status_text (ps->status));
     aw_pl_box_add (box, _("As set up"), t);
+    if (b->hop_over_limit)
+      aw_pl_box_add (box, NULL, _("The hop as set up is above the hop limit: the hop-up cannot "
+                                  "reach it."));
   }
 }
 
@@ -832,6 +869,13 @@ add_sweep_table (AwPlFlowDoc *doc, AwPrintJob *job, const AwPrintSetup *ps)
       cells[4] = g_strdup (r->compliance == AW_COMPLIANCE_OVER ? _("over")
                            : r->compliance == AW_COMPLIANCE_UNDER ? _("under") : "–");
       cells[5] = aw_pl_num (r->band.lift_ratio, 2);
+      if (r->band.hop_limited)
+        {
+          /* held at the hop limit */
+          char *c5 = g_strconcat (cells[5], " †", NULL);
+          g_free (cells[5]);
+          cells[5] = c5;
+        }
       cells[6] = aw_pl_num (aw_qty_to_display (AW_QTY_DISTANCE, u, r->band.band_range_m), 0);
       cells[7] = aw_pl_num (aw_qty_to_display (AW_QTY_SMALL_CM, u,
                                                r->drift_30m_cm_per_mps * per), 1);
@@ -932,8 +976,24 @@ add_setup_pages (AwPlFlowDoc *doc, AwPrintJob *job, const AwPrintSetup *ps, gboo
                                                 "the recommended BB; shaded: the BB this setup "
                                                 "uses; hatched: over the limit."), &note);
     cb->keep_with_next = TRUE;
-    cb->space_after = 4.0;
+    cb->space_after = has_hop_limit (ps) ? 1.0 : 4.0;
   }
+  if (ps->has_rec && ps->rec.n_rows > 0)
+    {
+      g_autofree char *lr = has_hop_limit (ps) ? aw_pl_num (ps->setup->hop.max_lift_ratio, 2)
+                                               : NULL;
+      g_autofree char *bb = aw_pl_num_unit (aw_kg_to_g (ps->in.shot.mass_kg), 2, "g");
+      /* TRANSLATORS: note under the BB-mass table: the hop limit (lift ratio, BB mass) */
+      g_autofree char *t = lr ? g_strdup_printf (_("Hop limit: lift ratio %s with the %s BB. †: "
+                                                   "held there, the hop-up cannot lift that BB "
+                                                   "as much as it needs, so its band range is "
+                                                   "shorter."), lr, bb)
+                              : g_strdup (_("No hop limit is set: every BB is hopped as well as "
+                                            "it needs, which favours heavy BBs."));
+      AwPlBlock *hb = aw_pl_flow_add_text (doc, t, &note);
+      hb->keep_with_next = TRUE;
+      hb->space_after = 4.0;
+    }
   add_sweep_table (doc, job, ps);
 
   /* care and safety */
