@@ -360,6 +360,9 @@ aw_cli_fly (int argc, char **argv)
       aw_trajectory_clear (&tr);
       return st == AW_FLIGHT_BAD_INPUT ? AW_CLI_EXIT_USAGE : AW_CLI_EXIT_FAILED;
     }
+  if (st == AW_FLIGHT_TIME_LIMIT)
+    aw_cli_error ("fly", "the BB was still in the air after %g s; the output stops there",
+                  fo.max_time_s);
 
   switch (fmt)
     {

@@ -78,7 +78,12 @@ parse_number (const char *command, const char *name, const char *text, double *o
     }
   errno = 0;
   v = g_ascii_strtod (text, &end);
-  if (end == text || *end != '\0' || errno == ERANGE)
+  if (end != text && *end == '\0' && errno == ERANGE)
+    {
+      aw_cli_error (command, "--%s: out of range (found \"%s\")", name, text);
+      return false;
+    }
+  if (end == text || *end != '\0')
     {
       aw_cli_error (command, "--%s: not a number: \"%s\"", name, text);
       return false;

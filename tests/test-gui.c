@@ -1,5 +1,5 @@
 /* test-gui.c: the workbench window on the demo project — list, editor, live results, plot,
- * undo, rendering, saving and the German translation
+ * undo, rendering, saving, printing, the sweep view and the German translation
  *
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
@@ -24,6 +24,7 @@
 #include "aw-range-view.h"
 #include "aw-setup-editor.h"
 #include "aw-setup-row.h"
+#include "aw-sweep-panel.h"
 #include "aw-window.h"
 
 #define IDLE_TIMEOUT_S 60
@@ -628,6 +629,343 @@ test_document_undo (void)
                                                      0))->bb.mass_g, ==, 0.23);
 }
 
+/* ---- printing ---- */
+
+static GtkWidget *
+find_primary_menu_button (GtkWidget *w)
+{
+  if (GTK_IS_MENU_BUTTON (w) && gtk_menu_button_get_primary (GTK_MENU_BUTTON (w)))
+    return w;
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = find_primary_menu_button (c);
+      if (found)
+        return found;
+    }
+  return NULL;
+}
+
+/* The label of the menu entry that runs action (sections and submenus searched too). */
+static char *
+menu_label_for_action (GMenuModel *model,
+                       const char *action)
+{
+  for (int i = 0; i < g_menu_model_get_n_items (model); i++)
+    {
+      g_autofree char *name = NULL;
+      g_autoptr (GMenuLinkIter) links = NULL;
+      const char *link;
+      GMenuModel *linked;
+
+      if (g_menu_model_get_item_attribute (model, i, G_MENU_ATTRIBUTE_ACTION, "s", &name)
+          && g_str_equal (name, action))
+        {
+          char *label = NULL;
+          g_assert_true (g_menu_model_get_item_attribute (model, i, G_MENU_ATTRIBUTE_LABEL, "s",
+                                                          &label));
+          return label;
+        }
+      links = g_menu_model_iterate_item_links (model, i);
+      while (g_menu_link_iter_get_next (links, &link, &linked))
+        {
+          char *found = menu_label_for_action (linked, action);
+          g_object_unref (linked);
+          if (found)
+            return found;
+        }
+    }
+  return NULL;
+}
+
+/* A label without its mnemonic marks ("Range Car_d…" → "Range Card…"). */
+static char *
+without_mnemonic (const char *label)
+{
+  GString *out = g_string_new (NULL);
+
+  for (const char *c = label; *c; c++)
+    {
+      if (*c == '_' && c[1] == '_')
+        c++;
+      else if (*c == '_')
+        continue;
+      g_string_append_c (out, *c);
+    }
+  return g_string_free (out, FALSE);
+}
+
+/* The menu entry (a GtkModelButton, GTK's own type) whose text is label. */
+static GtkWidget *
+find_menu_entry (GtkWidget  *w,
+                 const char *label)
+{
+  if (g_str_equal (G_OBJECT_TYPE_NAME (w), "GtkModelButton"))
+    {
+      g_autofree char *text = NULL;
+      g_autofree char *plain = NULL;
+
+      g_object_get (w, "text", &text, NULL);
+      plain = text ? without_mnemonic (text) : NULL;
+      if (g_strcmp0 (plain, label) == 0)
+        return w;
+    }
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = find_menu_entry (c, label);
+      if (found)
+        return found;
+    }
+  return NULL;
+}
+
+static void collect_labels (GtkWidget *w, GString *out);
+
+static const char *const print_actions[] = {
+  "win.print-card", "win.print-sheet", "win.print-loadout",
+  "win.export-card-pdf", "win.export-sheet-pdf", "win.export-loadout-pdf",
+};
+
+/* The entry of the primary menu that runs an action: found by its label in the menu model,
+ * then among the popover's entries. Its sensitivity follows the action's enabled state. */
+static GtkWidget *
+primary_menu_item (AwWindow   *window,
+                   const char *action)
+{
+  GtkWidget *button = find_primary_menu_button (gtk_window_get_titlebar (GTK_WINDOW (window)));
+  g_autofree char *label = NULL;
+  g_autofree char *plain = NULL;
+  GtkWidget *item;
+
+  g_assert_nonnull (button);
+  g_assert_nonnull (gtk_menu_button_get_popover (GTK_MENU_BUTTON (button)));
+  label = menu_label_for_action (gtk_menu_button_get_menu_model (GTK_MENU_BUTTON (button)),
+                                 action);
+  if (label == NULL)
+    g_error ("the primary menu has no entry for %s", action);
+  plain = without_mnemonic (label);
+  item = find_menu_entry (GTK_WIDGET (gtk_menu_button_get_popover (GTK_MENU_BUTTON (button))),
+                          plain);
+  if (item == NULL)
+    g_error ("the primary menu shows no entry “%s” (%s)", plain, action);
+  return item;
+}
+
+/* Text of a PDF as pdftotext reads it, whitespace collapsed to single spaces. */
+static char *
+pdf_text (const char *path)
+{
+  g_autofree char *tool = g_find_program_in_path ("pdftotext");
+  g_autofree char *out = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GRegex) space = NULL;
+  int status = 0;
+  const char *argv[] = { NULL, "-enc", "UTF-8", path, "-", NULL };
+
+  /* poppler-utils is installed by .ci/install-deps */
+  if (tool == NULL)
+    g_error ("pdftotext (poppler-utils) is missing: run .ci/install-deps");
+  argv[0] = tool;
+  g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_DEFAULT, NULL, NULL, &out,
+                               NULL, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (g_spawn_check_wait_status (status, NULL));
+  space = g_regex_new ("\\s+", 0, 0, NULL);
+  return g_regex_replace_literal (space, out, -1, 0, " ", 0, NULL);
+}
+
+static void
+test_print_actions (void)
+{
+  AwWindow *window = open_demo ();
+  AwDocument *doc = aw_window_get_document (window);
+  const AwProject *p = aw_document_get_project (doc);
+  g_autoptr (AwPrintJob) job = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("aw-gui-print-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "card.pdf", NULL);
+  g_autofree char *plain = NULL;
+  g_autofree char *with_site = NULL;
+  g_autofree char *head = NULL;
+  const AwSiteRules *rules;
+  const AwSiteClassRule *cls;
+  guint n_shown = 0;
+  gsize len = 0;
+
+  g_assert_cmpuint (p->setups->len, >, 2);
+  g_assert_cmpuint (p->site_rules->len, >, 0);
+  for (guint i = 0; i < p->setups->len; i++)
+    n_shown += setup_at (window, i)->visible ? 1 : 0;
+  g_assert_cmpuint (n_shown, >, 1);
+
+  /* every print and PDF entry is in the menu and enabled while a setup is selected */
+  aw_window_select (window, 2);
+  for (guint i = 0; i < G_N_ELEMENTS (print_actions); i++)
+    g_assert_true (gtk_widget_get_sensitive (primary_menu_item (window, print_actions[i])));
+
+  /* the range card of the selected setup, through the job the actions build */
+  job = aw_window_new_print_job (window, AW_PRINT_KIND_CARD, &error);
+  g_assert_no_error (error);
+  g_assert_nonnull (job);
+  g_assert_cmpint (aw_print_job_get_kind (job), ==, AW_PRINT_KIND_CARD);
+  g_assert_cmpuint (aw_print_job_get_n_setups (job), ==, 1);
+  g_assert_nonnull (strstr (aw_print_job_get_title (job), setup_at (window, 2)->name));
+  g_assert_cmpint (aw_print_job_get_units (job), ==, AW_PRINT_UNITS_METRIC);
+  g_assert_true (aw_print_to_pdf (job, path, &error));
+  g_assert_no_error (error);
+  g_assert_true (g_file_get_contents (path, &head, &len, NULL));
+  g_assert_cmpuint (len, >, 1000);
+  g_assert_true (g_str_has_prefix (head, "%PDF-"));
+  plain = pdf_text (path);
+  g_assert_nonnull (strstr (plain, setup_at (window, 2)->name));
+  g_clear_pointer (&job, aw_print_job_free);
+
+  /* the window's site class goes on the card */
+  rules = g_ptr_array_index (p->site_rules, 0);
+  g_assert_cmpuint (rules->classes->len, >, 0);
+  cls = g_ptr_array_index (rules->classes, rules->classes->len - 1);
+  g_assert_null (strstr (plain, cls->name));
+  aw_window_set_site_class (window, rules->classes->len);
+  wait_idle (window);
+  job = aw_window_new_print_job (window, AW_PRINT_KIND_CARD, &error);
+  g_assert_no_error (error);
+  g_assert_true (aw_print_to_pdf (job, path, &error));
+  g_assert_no_error (error);
+  with_site = pdf_text (path);
+  g_assert_nonnull (strstr (with_site, cls->name));
+  g_clear_pointer (&job, aw_print_job_free);
+
+  /* imperial units follow the preference */
+  g_settings_set_enum (settings, "units", 1);
+  job = aw_window_new_print_job (window, AW_PRINT_KIND_SHEET, &error);
+  g_settings_reset (settings, "units");
+  g_assert_no_error (error);
+  g_assert_cmpint (aw_print_job_get_units (job), ==, AW_PRINT_UNITS_IMPERIAL);
+  g_assert_cmpint (aw_print_job_get_paper (job), !=, AW_PAPER_A6);
+  g_clear_pointer (&job, aw_print_job_free);
+
+  /* a loadout sheet lists the setups shown in the plot */
+  job = aw_window_new_print_job (window, AW_PRINT_KIND_LOADOUT, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (aw_print_job_get_n_setups (job), ==, n_shown);
+  g_clear_pointer (&job, aw_print_job_free);
+  p = NULL;   /* the next edit replaces the document's project */
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.toggle-visible", NULL);
+  g_assert_false (setup_at (window, 2)->visible);
+  job = aw_window_new_print_job (window, AW_PRINT_KIND_LOADOUT, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (aw_print_job_get_n_setups (job), ==, n_shown - 1);
+  g_clear_pointer (&job, aw_print_job_free);
+
+  /* with no setup shown there is no loadout to print, but still a card (each edit replaces
+   * the document's project: it is looked up again) */
+  for (guint i = 0; i < aw_document_get_project (doc)->setups->len; i++)
+    if (setup_at (window, i)->visible)
+      {
+        aw_window_select (window, (int) i);
+        gtk_widget_activate_action (GTK_WIDGET (window), "win.toggle-visible", NULL);
+      }
+  for (guint i = 0; i < aw_document_get_project (doc)->setups->len; i++)
+    g_assert_false (setup_at (window, i)->visible);
+  g_assert_false (gtk_widget_get_sensitive (primary_menu_item (window, "win.print-loadout")));
+  g_assert_false (gtk_widget_get_sensitive (primary_menu_item (window,
+                                                               "win.export-loadout-pdf")));
+  g_assert_true (gtk_widget_get_sensitive (primary_menu_item (window, "win.print-card")));
+  g_assert_true (gtk_widget_get_sensitive (primary_menu_item (window, "win.export-sheet-pdf")));
+  job = aw_window_new_print_job (window, AW_PRINT_KIND_LOADOUT, &error);
+  g_assert_null (job);
+  g_assert_error (error, AW_PRINT_ERROR, AW_PRINT_ERROR_NO_SETUP);
+  g_clear_error (&error);
+
+  g_remove (path);
+  g_rmdir (dir);
+  close_window (window);
+}
+
+/* ---- the sweep view ---- */
+
+static gboolean
+sweep_done (AwSweepPanel *panel,
+            guint         runs_before)
+{
+  gint64 end = g_get_monotonic_time () + IDLE_TIMEOUT_S * G_USEC_PER_SEC;
+
+  while (aw_sweep_panel_get_runs_started (panel) <= runs_before
+         || aw_sweep_panel_get_running (panel) || aw_sweep_panel_get_result (panel) == NULL)
+    {
+      if (g_get_monotonic_time () > end)
+        return FALSE;
+      if (!g_main_context_iteration (NULL, FALSE))
+        g_usleep (2000);
+    }
+  return TRUE;
+}
+
+static void
+test_sweep_view (void)
+{
+  AwWindow *window = open_demo ();
+  AwSweepPanel *panel = AW_SWEEP_PANEL (aw_window_get_sweep_panel (window));
+  const AwProject *p = aw_document_get_project (aw_window_get_document (window));
+  const AwSiteRules *rules = g_ptr_array_index (p->site_rules, 0);
+  const AwSiteClassRule *cls = g_ptr_array_index (rules->classes, rules->classes->len - 1);
+  const AwSweepResult *r;
+  g_autoptr (GdkTexture) texture = NULL;
+  g_autofree char *png = g_test_build_filename (G_TEST_BUILT, "gui-window-sweep.png", NULL);
+  double mass_g;
+  guint runs;
+
+  g_assert_nonnull (panel);
+  g_assert_cmpstr (aw_window_get_view (window), ==, "flight");
+  g_assert_true (gtk_widget_get_mapped (aw_window_get_plot (window)));
+  g_assert_false (gtk_widget_get_mapped (GTK_WIDGET (panel)));
+
+  /* the view action switches to the sweep panel; the editor makes room for it */
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.view", "s", "sweep");
+  g_assert_cmpstr (aw_window_get_view (window), ==, "sweep");
+  wait_idle (window);
+  g_assert_true (gtk_widget_get_mapped (GTK_WIDGET (panel)));
+  g_assert_false (gtk_widget_get_mapped (aw_window_get_plot (window)));
+  g_assert_false (gtk_widget_get_visible (aw_window_get_editor (window)));
+
+  /* the panel sweeps the window's project, checked against the window's site class */
+  aw_window_set_site_class (window, rules->classes->len);
+  aw_sweep_panel_set_threads (panel, 2);
+  runs = aw_sweep_panel_get_runs_started (panel);
+  aw_sweep_panel_run (panel);
+  g_assert_true (sweep_done (panel, runs));
+  r = aw_sweep_panel_get_result (panel);
+  g_assert_cmpuint (r->n_setups, ==, p->setups->len);
+  g_assert_cmpstr (r->setup_names[0], ==, setup_at (window, 0)->name);
+  g_assert_cmpfloat (r->desc.site.energy_limit_j, ==, cls->energy_limit_j);
+  mass_g = setup_at (window, 0)->bb.mass_g;
+  g_assert_cmpfloat (fabs (aw_sweep_result_point (r, 0, 0, 0)->mass_kg - mass_g * 1e-3), <,
+                     1e-12);
+
+  wait_idle (window);
+  texture = render_window (window);
+  check_not_blank (texture);
+  g_assert_true (gdk_texture_save_to_png (texture, png));
+  g_test_message ("sweep view rendered to %s", png);
+
+  /* back to the flight; an edit there reaches the panel, which sweeps again */
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.view", "s", "flight");
+  g_assert_cmpstr (aw_window_get_view (window), ==, "flight");
+  g_assert_true (gtk_widget_get_visible (aw_window_get_editor (window)));
+  aw_window_select (window, 0);
+  runs = aw_sweep_panel_get_runs_started (panel);
+  {
+    g_autofree char *text = aw_format_number (mass_g + 0.05, 2);
+    type_into (editor_field (window, "mass_field"), text);
+  }
+  g_assert_cmpfloat_with_epsilon (setup_at (window, 0)->bb.mass_g, mass_g + 0.05, 1e-9);
+  g_assert_true (sweep_done (panel, runs));
+  r = aw_sweep_panel_get_result (panel);
+  g_assert_cmpfloat (fabs (aw_sweep_result_point (r, 0, 0, 0)->mass_kg - (mass_g + 0.05) * 1e-3),
+                     <, 1e-12);
+  wait_idle (window);
+  close_window (window);
+}
+
 /* ---- German ---- */
 
 static void
@@ -668,6 +1006,34 @@ test_german (void)
   g_assert_nonnull (strstr (labels->str, "Entfernung (m)"));
   g_assert_null (strstr (labels->str, "Copy as CSV"));
   g_assert_null (strstr (labels->str, "Replica and chrono"));
+  /* the view switcher */
+  g_assert_nonnull (strstr (labels->str, "\nFlug\n"));
+  g_assert_nonnull (strstr (labels->str, "\nVariation\n"));
+
+  /* the print entries of the menu */
+  {
+    static const struct
+    {
+      const char *action;
+      const char *english;
+      const char *german;
+    } items[] = {
+      { "win.print-card", "Range Card…", "Schusskarte …" },
+      { "win.print-sheet", "Setup Sheet…", "Setup-Blatt …" },
+      { "win.print-loadout", "Loadout Sheet…", "Ausrüstungsblatt …" },
+      { "win.export-card-pdf", "Range Card as PDF…", "Schusskarte als PDF …" },
+      { "win.export-sheet-pdf", "Setup Sheet as PDF…", "Setup-Blatt als PDF …" },
+      { "win.export-loadout-pdf", "Loadout Sheet as PDF…", "Ausrüstungsblatt als PDF …" },
+    };
+    for (guint i = 0; i < G_N_ELEMENTS (items); i++)
+      {
+        g_autoptr (GString) item = g_string_new (NULL);
+        collect_labels (primary_menu_item (window, items[i].action), item);
+        g_test_message ("%s: %s", items[i].action, item->str);
+        g_assert_nonnull (strstr (item->str, items[i].german));
+        g_assert_null (strstr (item->str, items[i].english));
+      }
+  }
 
   /* numbers shown follow the locale: a decimal comma */
   mass_text = gtk_editable_get_text (GTK_EDITABLE (aw_number_field_get_entry (
@@ -744,6 +1110,8 @@ main (int   argc,
       g_test_add_func ("/gui/window/render-png", test_render_png);
       g_test_add_func ("/gui/window/save-reload", test_save_reload);
       g_test_add_func ("/gui/window/autosave", test_autosave);
+      g_test_add_func ("/gui/window/print", test_print_actions);
+      g_test_add_func ("/gui/window/sweep-view", test_sweep_view);
     }
   status = g_test_run ();
   g_clear_object (&settings);

@@ -118,6 +118,7 @@ aw_sweep_metric_title (AwSweepMetric metric, double at_distance_m)
     case AW_SWEEP_METRIC_MUZZLE_ENERGY:
       return g_strdup (_("Muzzle energy (J)"));
     case AW_SWEEP_METRIC_COMPLIANCE:
+      /* xgettext:no-c-format */
       return g_strdup (_("Energy as the site measures it (% of the limit)"));
     case AW_SWEEP_N_METRICS:
     default:

@@ -66,7 +66,7 @@ add_setup_cb (GtkWidget  *widget,
   self->selected = (int) n;
   aw_document_push (self->document, p, _ ("Add setup"), NULL, self->selected, (int) n);
   aw_window_select (self, (int) n);
-  aw_setup_editor_focus_name (self->editor);
+  aw_window_focus_editor (self);
 }
 
 static void
@@ -104,7 +104,7 @@ rename_setup_cb (GtkWidget  *widget,
 {
   AwWindow *self = AW_WINDOW (widget);
 
-  aw_setup_editor_focus_name (self->editor);
+  aw_window_focus_editor (self);
 }
 
 static void
@@ -716,7 +716,7 @@ focus_list_cb (GtkWidget *widget, const char *action_name, GVariant *parameter)
 static void
 focus_editor_cb (GtkWidget *widget, const char *action_name, GVariant *parameter)
 {
-  aw_setup_editor_focus_name (AW_WINDOW (widget)->editor);
+  aw_window_focus_editor (AW_WINDOW (widget));
 }
 
 static void

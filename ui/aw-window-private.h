@@ -87,6 +87,8 @@ double aw_window_min_engagement_m (AwWindow *self);
 /* The site class chosen in the window (NULL: none); rules, when not NULL, gets its site rules. */
 const AwSiteClassRule *aw_window_get_site_choice (AwWindow *self, const AwSiteRules **rules);
 void aw_window_show_error (AwWindow *self, const char *headline, const char *detail);
+/* Shows the flight view and puts the focus in the editor's name field. */
+void aw_window_focus_editor (AwWindow *self);
 void aw_window_show_banner_with_action (AwWindow *self, const char *message, AwBannerAction action,
                                         const char *button_label);
 

@@ -360,6 +360,14 @@ aw_window_get_view (AwWindow *self)
   return name ? name : "flight";
 }
 
+/* The editor is beside the flight view only (the sweep panel needs the width). */
+void
+aw_window_focus_editor (AwWindow *self)
+{
+  aw_window_set_view (self, "flight");
+  aw_setup_editor_focus_name (self->editor);
+}
+
 void
 aw_window_set_view (AwWindow   *self,
                     const char *view)
@@ -608,7 +616,7 @@ static void
 row_activated_cb (AwWindow      *self,
                   GtkListBoxRow *row)
 {
-  aw_setup_editor_focus_name (self->editor);
+  aw_window_focus_editor (self);
 }
 
 /* Delete in the list deletes the selected setup (it can be undone). */
@@ -918,6 +926,14 @@ aw_window_set_property (GObject      *object,
 static void
 view_changed_cb (AwWindow *self)
 {
+  gboolean flight = g_str_equal (aw_window_get_view (self), "flight");
+
+  /* the sweep panel takes the editor's room: its controls are wide */
+  gtk_widget_set_visible (GTK_WIDGET (self->editor), flight);
+  /* the keyboard goes to the plot of the view shown (in the sweep panel, Ctrl+Return runs the
+   * sweep from there) */
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    gtk_widget_grab_focus (flight ? self->plot : aw_sweep_panel_get_plot (self->sweep_panel));
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_VIEW]);
 }
 
@@ -1151,6 +1167,14 @@ aw_window_init (AwWindow *self)
   }
   g_signal_connect_swapped (self->site_dropdown, "notify::selected",
                             G_CALLBACK (site_changed_cb), self);
+
+  /* The sweep plot asks for 640 × 360 pixels, more than a 900 × 600 window has below the
+   * sweep controls: it may shrink to this and grows with the window (it expands). */
+  {
+    GtkWidget *sweep_plot = aw_sweep_panel_get_plot (self->sweep_panel);
+    gtk_drawing_area_set_content_width (GTK_DRAWING_AREA (sweep_plot), 360);
+    gtk_drawing_area_set_content_height (GTK_DRAWING_AREA (sweep_plot), 200);
+  }
 
   /* controls that show only an icon still need a name for assistive technology */
   label_icon_button (GTK_WIDGET (self->sidebar_button), _ ("Show the setups"));
