@@ -1168,14 +1168,14 @@ aw_plot_export (const AwPlotScene    *scene,
 }
 
 gboolean
-aw_plot_export_full (const AwPlotScene    *scene,
-                     const AwPlotViewport *vp,
-                     const AwChartStyle   *style,
-                     const char           *path,
-                     AwPlotFormat          fmt,
-                     double                width,
-                     double                height,
-                     GError              **error)
+aw_plot_export_drawing (AwPlotDrawFunc draw,
+                        gconstpointer  data,
+                        const char    *title,
+                        const char    *path,
+                        AwPlotFormat   fmt,
+                        double         width,
+                        double         height,
+                        GError       **error)
 {
   g_autoptr (GByteArray) bytes = NULL;
   cairo_surface_t *surface;
@@ -1183,7 +1183,7 @@ aw_plot_export_full (const AwPlotScene    *scene,
   cairo_t *cr;
   double max = fmt == AW_PLOT_FORMAT_PNG ? MAX_EXPORT_PX : MAX_EXPORT_PT;
 
-  g_return_val_if_fail (scene != NULL, FALSE);
+  g_return_val_if_fail (draw != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (path == NULL || *path == '\0')
@@ -1198,12 +1198,6 @@ aw_plot_export_full (const AwPlotScene    *scene,
                      "height %g)"), path, max, width, height);
       return FALSE;
     }
-  if (fmt != AW_PLOT_FORMAT_PNG && fmt != AW_PLOT_FORMAT_SVG && fmt != AW_PLOT_FORMAT_PDF)
-    {
-      g_set_error (error, G_IO_ERROR, G_IO_ERROR_NOT_SUPPORTED,
-                   _("Cannot export “%s”: unknown file format"), path);
-      return FALSE;
-    }
 
   bytes = g_byte_array_new ();
   switch (fmt)
@@ -1215,19 +1209,22 @@ aw_plot_export_full (const AwPlotScene    *scene,
       surface = cairo_pdf_surface_create_for_stream (write_to_bytes, bytes, width, height);
       if (cairo_surface_status (surface) == CAIRO_STATUS_SUCCESS)
         {
-          cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_TITLE, _("Flight plot"));
+          cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_TITLE, title);
           cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_CREATOR, "Arcwright");
         }
       break;
     case AW_PLOT_FORMAT_PNG:
-    default:
       surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, (int) ceil (width),
                                             (int) ceil (height));
       break;
+    default:
+      g_set_error (error, G_IO_ERROR, G_IO_ERROR_NOT_SUPPORTED,
+                   _("Cannot export “%s”: unknown file format"), path);
+      return FALSE;
     }
 
   cr = cairo_create (surface);
-  aw_plot_render (cr, width, height, scene, vp, style);
+  draw (cr, width, height, data);
   cairo_show_page (cr);
   status = cairo_status (cr);
   cairo_destroy (cr);
@@ -1248,4 +1245,35 @@ aw_plot_export_full (const AwPlotScene    *scene,
 
   /* g_file_set_contents writes a temporary file and renames it over the old one */
   return g_file_set_contents (path, (const char *) bytes->data, bytes->len, error);
+}
+
+typedef struct
+{
+  const AwPlotScene *scene;
+  const AwPlotViewport *vp;
+  const AwChartStyle *style;
+} FlightDrawing;
+
+static void
+draw_flight (cairo_t *cr, double width, double height, gconstpointer data)
+{
+  const FlightDrawing *d = data;
+  aw_plot_render (cr, width, height, d->scene, d->vp, d->style);
+}
+
+gboolean
+aw_plot_export_full (const AwPlotScene    *scene,
+                     const AwPlotViewport *vp,
+                     const AwChartStyle   *style,
+                     const char           *path,
+                     AwPlotFormat          fmt,
+                     double                width,
+                     double                height,
+                     GError              **error)
+{
+  FlightDrawing d = { scene, vp, style };
+
+  g_return_val_if_fail (scene != NULL, FALSE);
+  return aw_plot_export_drawing (draw_flight, &d, _("Flight plot"), path, fmt, width, height,
+                                 error);
 }

@@ -143,6 +143,13 @@ bool aw_plot_format_from_path (const char *path, AwPlotFormat *fmt);
 
 /* Renders (light style) and writes the file atomically: an existing file is replaced only when
  * the new one is complete. Errors are G_IO_ERROR / G_FILE_ERROR with the path in the message. */
+/* Draws with draw (cr, width, height, data) onto a PNG, SVG or PDF of width × height (pixels for
+ * PNG, points otherwise) and writes it atomically to path. Every plot's export goes through here. */
+typedef void (*AwPlotDrawFunc) (cairo_t *cr, double width, double height, gconstpointer data);
+gboolean aw_plot_export_drawing (AwPlotDrawFunc draw, gconstpointer data, const char *title,
+                                 const char *path, AwPlotFormat fmt, double width, double height,
+                                 GError **error);
+
 gboolean aw_plot_export (const AwPlotScene *scene, const AwPlotViewport *vp, const char *path,
                          AwPlotFormat fmt, double width, double height, GError **error);
 

@@ -13,8 +13,6 @@
 
 #include "aw-sweep-plot.h"
 
-#define MAX_EXPORT_PX 16384.0
-#define MAX_EXPORT_PT 14400.0
 #define MARKERS_UP_TO 40          /* curves with at most this many points show their points */
 #define MAX_CONTOURS  12
 
@@ -1063,80 +1061,25 @@ aw_sweep_plot_format_readout (const AwSweepPlotScene *scene, const AwSweepPlotHi
 
 /* ---- export ---- */
 
-static cairo_status_t
-write_to_bytes (void *closure, const unsigned char *data, unsigned int length)
+typedef struct
 {
-  g_byte_array_append (closure, data, length);
-  return CAIRO_STATUS_SUCCESS;
+  const AwSweepPlotScene *scene;
+  const AwChartStyle *style;
+} SweepDrawing;
+
+static void
+draw_sweep (cairo_t *cr, double width, double height, gconstpointer data)
+{
+  const SweepDrawing *d = data;
+  aw_sweep_plot_render (cr, width, height, d->scene, d->style);
 }
 
 gboolean
 aw_sweep_plot_export (const AwSweepPlotScene *scene, const AwChartStyle *style, const char *path,
                       AwPlotFormat fmt, double width, double height, GError **error)
 {
-  g_autoptr (GByteArray) bytes = NULL;
-  cairo_surface_t *surface;
-  cairo_status_t status;
-  cairo_t *cr;
-  double max = fmt == AW_PLOT_FORMAT_PNG ? MAX_EXPORT_PX : MAX_EXPORT_PT;
+  SweepDrawing d = { scene, style };
 
   g_return_val_if_fail (scene != NULL, FALSE);
-  g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
-
-  if (path == NULL || *path == '\0')
-    {
-      g_set_error (error, G_IO_ERROR, G_IO_ERROR_INVALID_FILENAME, _("No file name given"));
-      return FALSE;
-    }
-  if (!(width >= 1.0 && width <= max) || !(height >= 1.0 && height <= max))
-    {
-      g_set_error (error, G_IO_ERROR, G_IO_ERROR_INVALID_ARGUMENT,
-                   _("Cannot export “%s”: the size must be between 1 and %.0f (width %g, "
-                     "height %g)"), path, max, width, height);
-      return FALSE;
-    }
-
-  bytes = g_byte_array_new ();
-  switch (fmt)
-    {
-    case AW_PLOT_FORMAT_SVG:
-      surface = cairo_svg_surface_create_for_stream (write_to_bytes, bytes, width, height);
-      break;
-    case AW_PLOT_FORMAT_PDF:
-      surface = cairo_pdf_surface_create_for_stream (write_to_bytes, bytes, width, height);
-      if (cairo_surface_status (surface) == CAIRO_STATUS_SUCCESS)
-        {
-          cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_TITLE, _("Sweep"));
-          cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_CREATOR, "Arcwright");
-        }
-      break;
-    case AW_PLOT_FORMAT_PNG:
-      surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, (int) ceil (width),
-                                            (int) ceil (height));
-      break;
-    default:
-      g_set_error (error, G_IO_ERROR, G_IO_ERROR_NOT_SUPPORTED,
-                   _("Cannot export “%s”: unknown file format"), path);
-      return FALSE;
-    }
-
-  cr = cairo_create (surface);
-  aw_sweep_plot_render (cr, width, height, scene, style);
-  cairo_show_page (cr);
-  status = cairo_status (cr);
-  cairo_destroy (cr);
-  if (status == CAIRO_STATUS_SUCCESS && fmt == AW_PLOT_FORMAT_PNG)
-    status = cairo_surface_write_to_png_stream (surface, write_to_bytes, bytes);
-  cairo_surface_finish (surface);
-  if (status == CAIRO_STATUS_SUCCESS)
-    status = cairo_surface_status (surface);
-  cairo_surface_destroy (surface);
-  if (status != CAIRO_STATUS_SUCCESS)
-    {
-      g_set_error (error, G_IO_ERROR, G_IO_ERROR_FAILED, _("Cannot draw “%s”: %s"), path,
-                   cairo_status_to_string (status));
-      return FALSE;
-    }
-  /* g_file_set_contents writes a temporary file and renames it over the old one */
-  return g_file_set_contents (path, (const char *) bytes->data, bytes->len, error);
+  return aw_plot_export_drawing (draw_sweep, &d, _("Sweep"), path, fmt, width, height, error);
 }
