@@ -41,21 +41,6 @@ print_help (void)
           "                        energy-versus-mass behaviour)\n");
 }
 
-typedef enum { FMT_TEXT, FMT_CSV, FMT_JSON } Format;
-
-static bool
-parse_format (const char *s, Format *f)
-{
-  if (g_str_equal (s, "text"))
-    *f = FMT_TEXT;
-  else if (g_str_equal (s, "csv"))
-    *f = FMT_CSV;
-  else if (g_str_equal (s, "json"))
-    *f = FMT_JSON;
-  else
-    return false;
-  return true;
-}
 
 static void
 print_json (const AwShot *shot, const AwTrajectory *tr, double lift_ratio)
@@ -298,17 +283,16 @@ aw_cli_fly (int argc, char **argv)
   AwFlightOptions fo;
   AwTrajectory tr = { 0 };
   double step = 1.0, lift_ratio;
-  const char *format = "text";
   const char *project_file = NULL, *setup_name = NULL;
   g_autofree char *description = NULL;
   bool help = false;
-  Format fmt;
+  int fmt = AW_CLI_FORMAT_TEXT;
   g_autoptr (GArray) args = g_array_new (TRUE, TRUE, sizeof (AwCliArg));
 
   aw_cli_shot_options_init (&so);
   aw_cli_shot_options_add (&so, args);
   g_array_append_val (args, ((AwCliArg) { "step-m", AW_CLI_ARG_POSITIVE, &step, 0.01, 1000, NULL }));
-  g_array_append_val (args, ((AwCliArg) { "format", AW_CLI_ARG_STRING, &format, 0, 0, NULL }));
+  AW_CLI_ADD_CHOICE (args, "format", &fmt, aw_cli_format_words, NULL);
   g_array_append_val (args, ((AwCliArg) { "help", AW_CLI_ARG_FLAG, &help, 0, 0, NULL }));
   g_array_append_val (args, ((AwCliArg) { "project", AW_CLI_ARG_STRING, &project_file, 0, 0,
                                           NULL }));
@@ -321,11 +305,6 @@ aw_cli_fly (int argc, char **argv)
     {
       print_help ();
       return AW_CLI_EXIT_OK;
-    }
-  if (!parse_format (format, &fmt))
-    {
-      aw_cli_error ("fly", "--format: expected text, csv or json (found \"%s\")", format);
-      return AW_CLI_EXIT_USAGE;
     }
 
   if ((project_file == NULL) != (setup_name == NULL))
@@ -366,13 +345,13 @@ aw_cli_fly (int argc, char **argv)
 
   switch (fmt)
     {
-    case FMT_JSON:
+    case AW_CLI_FORMAT_JSON:
       print_json (&shot, &tr, lift_ratio);
       break;
-    case FMT_CSV:
+    case AW_CLI_FORMAT_CSV:
       print_csv (&tr);
       break;
-    case FMT_TEXT:
+    case AW_CLI_FORMAT_TEXT:
     default:
       if (description != NULL)
         printf ("%s\n", description);

@@ -64,7 +64,10 @@ aw_cli_print (int argc, char **argv)
   g_autoptr (AwProject) project = NULL;
   g_autoptr (AwPrintJob) job = NULL;
   g_autofree char **args_v = NULL;
-  const char *output = NULL, *paper_s = NULL, *units_s = NULL, *site = NULL, *klass = NULL;
+  static const char *const units_words[] = { "metric", "imperial", NULL };
+  int units = AW_PRINT_UNITS_METRIC;
+  bool seen_units = false;
+  const char *output = NULL, *paper_s = NULL, *site = NULL, *klass = NULL;
   const char *date_s = NULL, *project_s = NULL;
   bool sheet_of_cards = false, help = false;
   AwPaper paper;
@@ -96,7 +99,7 @@ aw_cli_print (int argc, char **argv)
       { "output", AW_CLI_ARG_STRING, &output, 0, 0, NULL },
       { "paper", AW_CLI_ARG_STRING, &paper_s, 0, 0, NULL },
       { "sheet-of-cards", AW_CLI_ARG_FLAG, &sheet_of_cards, 0, 0, NULL },
-      { "units", AW_CLI_ARG_STRING, &units_s, 0, 0, NULL },
+      { "units", AW_CLI_ARG_CHOICE, &units, 0, 0, &seen_units, units_words },
       { "site", AW_CLI_ARG_STRING, &site, 0, 0, NULL },
       { "class", AW_CLI_ARG_STRING, &klass, 0, 0, NULL },
       { "date", AW_CLI_ARG_STRING, &date_s, 0, 0, NULL },
@@ -168,18 +171,8 @@ aw_cli_print (int argc, char **argv)
     }
   else if (sheet_of_cards)
     aw_print_job_set_paper (job, AW_PAPER_A4);
-  if (units_s)
-    {
-      if (g_str_equal (units_s, "metric"))
-        aw_print_job_set_units (job, AW_PRINT_UNITS_METRIC);
-      else if (g_str_equal (units_s, "imperial"))
-        aw_print_job_set_units (job, AW_PRINT_UNITS_IMPERIAL);
-      else
-        {
-          aw_cli_error (command, "--units: expected metric or imperial (found \"%s\")", units_s);
-          return AW_CLI_EXIT_USAGE;
-        }
-    }
+  if (seen_units)
+    aw_print_job_set_units (job, (AwPrintUnits) units);   /* units_words follow AwPrintUnits */
   if (date_s)
     {
       int y, m, d;

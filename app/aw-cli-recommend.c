@@ -45,7 +45,6 @@ print_help (void)
           "  --format text|csv|json\n");
 }
 
-typedef enum { FMT_TEXT, FMT_CSV, FMT_JSON } Format;
 
 static const char *
 compliance_name (AwCompliance c)
@@ -262,12 +261,12 @@ aw_cli_recommend (int argc, char **argv)
   AwRecommendation rec = { 0 };
   AwShot own;
   double hop_limit = NAN;
-  const char *format = "text", *masses_text = DEFAULT_MASSES;
+  const char *masses_text = DEFAULT_MASSES;
   const char *project = NULL, *setup = NULL;
   double band_cm = 15.0, sight_cm = 0.0, zero_m = NAN, lift_ratio;
   bool seen_band = false, seen_sight = false, seen_zero = false, seen_project = false;
   bool seen_setup = false, help = false;
-  Format fmt;
+  int fmt = AW_CLI_FORMAT_TEXT;
   g_autoptr (GArray) args = g_array_new (TRUE, TRUE, sizeof (AwCliArg));
   g_autoptr (GArray) masses = NULL;
   g_autofree AwPowerPoint *points = NULL;
@@ -277,14 +276,14 @@ aw_cli_recommend (int argc, char **argv)
   aw_cli_shot_options_add (&so, args);
   aw_cli_site_options_init (&sto);
   aw_cli_site_options_add (&sto, args);
-#define ARG(n, k, t, l, h, s) g_array_append_val (args, ((AwCliArg) { n, k, t, l, h, s }))
+#define ARG(n, k, t, l, h, s) AW_CLI_ADD (args, n, k, t, l, h, s)
   ARG ("project", AW_CLI_ARG_STRING, &project, 0, 0, &seen_project);
   ARG ("setup", AW_CLI_ARG_STRING, &setup, 0, 0, &seen_setup);
   ARG ("masses", AW_CLI_ARG_STRING, &masses_text, 0, 0, NULL);
   ARG ("band-cm", AW_CLI_ARG_POSITIVE, &band_cm, 0.1, 500.0, &seen_band);
   ARG ("sight-height-cm", AW_CLI_ARG_DOUBLE, &sight_cm, -100.0, 100.0, &seen_sight);
   ARG ("zero-m", AW_CLI_ARG_POSITIVE, &zero_m, 0.0, 1000.0, &seen_zero);
-  ARG ("format", AW_CLI_ARG_STRING, &format, 0, 0, NULL);
+  AW_CLI_ADD_CHOICE (args, "format", &fmt, aw_cli_format_words, NULL);
   ARG ("help", AW_CLI_ARG_FLAG, &help, 0, 0, NULL);
 #undef ARG
 
@@ -294,17 +293,6 @@ aw_cli_recommend (int argc, char **argv)
     {
       print_help ();
       return AW_CLI_EXIT_OK;
-    }
-  if (g_str_equal (format, "text"))
-    fmt = FMT_TEXT;
-  else if (g_str_equal (format, "csv"))
-    fmt = FMT_CSV;
-  else if (g_str_equal (format, "json"))
-    fmt = FMT_JSON;
-  else
-    {
-      aw_cli_error (cmd, "--format: expected text, csv or json (found \"%s\")", format);
-      return AW_CLI_EXIT_USAGE;
     }
   if (so.seen_spin || so.seen_lift_ratio)
     {
@@ -421,13 +409,13 @@ aw_cli_recommend (int argc, char **argv)
 
   switch (fmt)
     {
-    case FMT_JSON:
+    case AW_CLI_FORMAT_JSON:
       print_json (&curve, &site, &rec, hop_limit, &own);
       break;
-    case FMT_CSV:
+    case AW_CLI_FORMAT_CSV:
       print_csv (&rec);
       break;
-    case FMT_TEXT:
+    case AW_CLI_FORMAT_TEXT:
     default:
       print_text (&in, &curve, &site, &rec, hop_limit, &own);
       break;

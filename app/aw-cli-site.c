@@ -23,7 +23,7 @@ aw_cli_site_options_init (AwCliSiteOptions *o)
   o->power = "constant-energy";
 }
 
-#define ARG(n, k, t, l, h, s) g_array_append_val (args, ((AwCliArg) { n, k, t, l, h, s }))
+#define ARG(n, k, t, l, h, s) AW_CLI_ADD (args, n, k, t, l, h, s)
 
 void
 aw_cli_site_options_add (AwCliSiteOptions *o, GArray *args)

@@ -360,14 +360,16 @@ aw_cli_sweep (int argc, char **argv)
 {
   AwCliShotOptions so;
   AwSweepDesc desc;
-  const char *vary = NULL, *vary2 = NULL, *metric_name = "band-range", *format = "csv";
-  const char *hop = NULL, *project_path = NULL, *output = NULL, *power = NULL;
+  const char *vary = NULL, *vary2 = NULL, *metric_name = "band-range";
+  static const char *const hop_words[] = { "default", "setup", "auto", NULL };
+  static const char *const format_words[] = { "csv", "json", NULL };
+  int hop = AW_SWEEP_HOP_DEFAULT, format = 0;
+  const char *project_path = NULL, *output = NULL, *power = NULL;
   const char *site_name = NULL, *class_name = NULL, *hop_limit_text = NULL;
   double threads = 0.0, band_half = AW_BAND_HALF_DEFAULT_M, sight = 0.0, zero = NAN;
   double limit = NAN, chrono_g = NAN;
   bool help = false, progress = false, seen_band = false, seen_sight = false, seen_zero = false;
   bool seen_limit = false, seen_chrono = false;
-  gboolean json;
   AwSweepMetric metric;
   AwSweepMetric metrics[AW_SWEEP_N_METRICS];
   guint n_metrics = 1;
@@ -379,16 +381,16 @@ aw_cli_sweep (int argc, char **argv)
   g_autoptr (AwSweepResult) result = NULL;
   g_autofree char *text = NULL;
 
-#define ADD(n, k, t, l, h, s) g_array_append_val (args, ((AwCliArg) { n, k, t, l, h, s }))
+#define ADD(n, k, t, l, h, s) AW_CLI_ADD (args, n, k, t, l, h, s)
   aw_cli_shot_options_init (&so);
   aw_cli_shot_options_add (&so, args);
   ADD ("vary", AW_CLI_ARG_STRING, &vary, 0, 0, NULL);
   ADD ("vary2", AW_CLI_ARG_STRING, &vary2, 0, 0, NULL);
   ADD ("metric", AW_CLI_ARG_STRING, &metric_name, 0, 0, NULL);
-  ADD ("hop", AW_CLI_ARG_STRING, &hop, 0, 0, NULL);
+  AW_CLI_ADD_CHOICE (args, "hop", &hop, hop_words, NULL);
   ADD ("hop-limit", AW_CLI_ARG_STRING, &hop_limit_text, 0, 0, NULL);
   ADD ("threads", AW_CLI_ARG_POSITIVE, &threads, 1, 256, NULL);
-  ADD ("format", AW_CLI_ARG_STRING, &format, 0, 0, NULL);
+  AW_CLI_ADD_CHOICE (args, "format", &format, format_words, NULL);
   ADD ("output", AW_CLI_ARG_STRING, &output, 0, 0, NULL);
   ADD ("progress", AW_CLI_ARG_FLAG, &progress, 0, 0, NULL);
   ADD ("project", AW_CLI_ARG_STRING, &project_path, 0, 0, NULL);
@@ -438,29 +440,11 @@ aw_cli_sweep (int argc, char **argv)
                     "compliance or all (found \"%s\")", metric_name);
       return AW_CLI_EXIT_USAGE;
     }
-  if (hop == NULL || g_str_equal (hop, "default"))
-    desc.hop = AW_SWEEP_HOP_DEFAULT;
-  else if (g_str_equal (hop, "setup"))
-    desc.hop = AW_SWEEP_HOP_SETUP;
-  else if (g_str_equal (hop, "auto"))
-    desc.hop = AW_SWEEP_HOP_AUTO;
-  else
-    {
-      aw_cli_error (CMD, "--hop: expected default, setup or auto (found \"%s\")", hop);
-      return AW_CLI_EXIT_USAGE;
-    }
+  desc.hop = (AwSweepHop) hop;   /* hop_words follow the AwSweepHop order */
   double hop_limit = NAN;
   if (hop_limit_text && !aw_cli_parse_hop_limit (hop_limit_text, &hop_limit, CMD))
     return AW_CLI_EXIT_USAGE;
-  if (g_str_equal (format, "csv"))
-    json = FALSE;
-  else if (g_str_equal (format, "json"))
-    json = TRUE;
-  else
-    {
-      aw_cli_error (CMD, "--format: expected csv or json (found \"%s\")", format);
-      return AW_CLI_EXIT_USAGE;
-    }
+  gboolean json = format == 1;
   if (threads != floor (threads))
     {
       aw_cli_error (CMD, "--threads: must be a whole number (found %g)", threads);

@@ -43,7 +43,6 @@ print_help (void)
           "  --format text|csv|json\n");
 }
 
-typedef enum { FMT_TEXT, FMT_CSV, FMT_JSON } Format;
 
 typedef struct
 {
@@ -239,14 +238,15 @@ aw_cli_table (int argc, char **argv)
   AwCliSiteOptions sto;
   AwAnalysisInput in;
   AwRangeTable table = { 0 };
-  const char *hop = NULL, *angle = "mrad", *format = "text";
+  const char *hop = NULL;
   const char *project = NULL, *setup = NULL;
   double band_cm = 15.0, sight_cm = 0.0, zero_m = NAN, step = 5.0, max_m = 0.0;
   bool seen_hop = false, seen_band = false, seen_sight = false, seen_zero = false;
   bool seen_angle = false, seen_step = false, seen_max = false, seen_project = false;
   bool seen_setup = false, optimise = false, help = false;
   double lift_ratio;
-  Format fmt;
+  int fmt = AW_CLI_FORMAT_TEXT, angle = AW_ANGLE_MRAD;
+  static const char *const angle_words[] = { "mrad", "moa", NULL };
   g_autoptr (GArray) args = g_array_new (TRUE, TRUE, sizeof (AwCliArg));
   g_autofree AwPowerPoint *points = NULL;
   g_auto (AwCliProjectBase) pb = { 0 };
@@ -257,7 +257,7 @@ aw_cli_table (int argc, char **argv)
   aw_cli_shot_options_add (&so, args);
   aw_cli_site_options_init (&sto);
   aw_cli_site_options_add (&sto, args);
-#define ARG(n, k, t, l, h, s) g_array_append_val (args, ((AwCliArg) { n, k, t, l, h, s }))
+#define ARG(n, k, t, l, h, s) AW_CLI_ADD (args, n, k, t, l, h, s)
   ARG ("project", AW_CLI_ARG_STRING, &project, 0, 0, &seen_project);
   ARG ("setup", AW_CLI_ARG_STRING, &setup, 0, 0, &seen_setup);
   ARG ("hop", AW_CLI_ARG_STRING, &hop, 0, 0, &seen_hop);
@@ -265,10 +265,10 @@ aw_cli_table (int argc, char **argv)
   ARG ("sight-height-cm", AW_CLI_ARG_DOUBLE, &sight_cm, -100.0, 100.0, &seen_sight);
   ARG ("zero-m", AW_CLI_ARG_POSITIVE, &zero_m, 0.0, 1000.0, &seen_zero);
   ARG ("optimise-elevation", AW_CLI_ARG_FLAG, &optimise, 0, 0, NULL);
-  ARG ("angle-unit", AW_CLI_ARG_STRING, &angle, 0, 0, &seen_angle);
+  AW_CLI_ADD_CHOICE (args, "angle-unit", &angle, angle_words, &seen_angle);
   ARG ("step-m", AW_CLI_ARG_POSITIVE, &step, 0.01, 1000.0, &seen_step);
   ARG ("max-m", AW_CLI_ARG_POSITIVE, &max_m, 0.0, 10000.0, &seen_max);
-  ARG ("format", AW_CLI_ARG_STRING, &format, 0, 0, NULL);
+  AW_CLI_ADD_CHOICE (args, "format", &fmt, aw_cli_format_words, NULL);
   ARG ("help", AW_CLI_ARG_FLAG, &help, 0, 0, NULL);
 #undef ARG
 
@@ -278,22 +278,6 @@ aw_cli_table (int argc, char **argv)
     {
       print_help ();
       return AW_CLI_EXIT_OK;
-    }
-  if (g_str_equal (format, "text"))
-    fmt = FMT_TEXT;
-  else if (g_str_equal (format, "csv"))
-    fmt = FMT_CSV;
-  else if (g_str_equal (format, "json"))
-    fmt = FMT_JSON;
-  else
-    {
-      aw_cli_error (cmd, "--format: expected text, csv or json (found \"%s\")", format);
-      return AW_CLI_EXIT_USAGE;
-    }
-  if (!g_str_equal (angle, "mrad") && !g_str_equal (angle, "moa"))
-    {
-      aw_cli_error (cmd, "--angle-unit: expected mrad or moa (found \"%s\")", angle);
-      return AW_CLI_EXIT_USAGE;
     }
   if (seen_hop && (so.seen_spin || so.seen_lift_ratio))
     {
@@ -381,7 +365,7 @@ aw_cli_table (int argc, char **argv)
   if (seen_zero)
     in.zero_distance_m = zero_m;
   if (seen_angle)
-    in.angle_unit = g_str_equal (angle, "moa") ? AW_ANGLE_MOA : AW_ANGLE_MRAD;
+    in.angle_unit = (AwAngleUnit) angle;
   if (optimise)
     {
       if (in.zero_distance_m > 0.0)
@@ -463,13 +447,13 @@ aw_cli_table (int argc, char **argv)
 
   switch (fmt)
     {
-    case FMT_JSON:
+    case AW_CLI_FORMAT_JSON:
       print_json (&in, &table, &cp);
       break;
-    case FMT_CSV:
+    case AW_CLI_FORMAT_CSV:
       print_csv (&in, &table);
       break;
-    case FMT_TEXT:
+    case AW_CLI_FORMAT_TEXT:
     default:
       print_text (&in, &table, &cp);
       break;

@@ -34,6 +34,22 @@ static const AwCliCommand commands[] = {
   { NULL, NULL, NULL }
 };
 
+const char *const aw_cli_format_words[] = { "text", "csv", "json", NULL };
+
+/* "a, b or c" */
+static char *
+choice_list (const char *const *choices)
+{
+  GString *s = g_string_new (NULL);
+  for (guint i = 0; choices[i]; i++)
+    {
+      if (i > 0)
+        g_string_append (s, choices[i + 1] ? ", " : " or ");
+      g_string_append (s, choices[i]);
+    }
+  return g_string_free (s, FALSE);
+}
+
 void
 aw_cli_error (const char *command, const char *format, ...)
 {
@@ -199,6 +215,21 @@ aw_cli_parse (int argc, char **argv, int first, const AwCliArg *args, GPtrArray 
         case AW_CLI_ARG_STRINGS:
           g_ptr_array_add ((GPtrArray *) arg->target, (gpointer) value);
           break;
+        case AW_CLI_ARG_CHOICE:
+          {
+            int found = -1;
+            for (int k = 0; arg->choices[k]; k++)
+              if (g_str_equal (arg->choices[k], value))
+                found = k;
+            if (found < 0)
+              {
+                g_autofree char *list = choice_list (arg->choices);
+                aw_cli_error (command, "--%s: expected %s (found \"%s\")", name, list, value);
+                return false;
+              }
+            *(int *) arg->target = found;
+          }
+          break;
         case AW_CLI_ARG_FLAG:
         default:
           break;
@@ -225,7 +256,7 @@ aw_cli_shot_options_init (AwCliShotOptions *o)
   o->lift = "default";
 }
 
-#define ARG(n, k, t, l, h, s) g_array_append_val (args, ((AwCliArg) { n, k, t, l, h, s }))
+#define ARG(n, k, t, l, h, s) AW_CLI_ADD (args, n, k, t, l, h, s)
 
 void
 aw_cli_shot_options_add (AwCliShotOptions *o, GArray *args)

@@ -27,6 +27,7 @@ typedef enum
   AW_CLI_ARG_POSITIVE,  /* finite number > 0 and ≤ hi */
   AW_CLI_ARG_STRING,    /* *(const char **) target */
   AW_CLI_ARG_STRINGS,   /* appended to a (GPtrArray *) target, may repeat */
+  AW_CLI_ARG_CHOICE,    /* one word of choices (NULL-terminated); *(int *) target = its index */
 } AwCliArgKind;
 
 typedef struct
@@ -36,7 +37,18 @@ typedef struct
   void *target;
   double lo, hi;        /* range for numbers */
   bool *seen;           /* optional: set when the option is given */
+  const char *const *choices;  /* AW_CLI_ARG_CHOICE: the words accepted */
 } AwCliArg;
+
+/* Words for the common --format choices; index order is the AwCliFormat order. */
+typedef enum { AW_CLI_FORMAT_TEXT, AW_CLI_FORMAT_CSV, AW_CLI_FORMAT_JSON } AwCliFormat;
+extern const char *const aw_cli_format_words[];
+
+/* Appends one option to a GArray of AwCliArg. */
+#define AW_CLI_ADD(args, n, k, t, l, h, s) \
+  g_array_append_val (args, ((AwCliArg) { n, k, t, l, h, s, NULL }))
+#define AW_CLI_ADD_CHOICE(args, n, t, words, s) \
+  g_array_append_val (args, ((AwCliArg) { n, AW_CLI_ARG_CHOICE, t, 0, 0, s, words }))
 
 /* Parses argv[first..argc) against args (terminated by a {NULL} entry). Positional arguments are
  * appended to positionals when it is non-NULL, else they are an error. On error prints one line
