@@ -98,12 +98,16 @@ print_json (const AwAnalysisInput *in, const AwRangeTable *t, const Compliance *
           r->hop_limited ? "true" : "false", r->hop_over_limit ? "true" : "false");
   if (cp->have_site)
     printf (", \"energy_limit_j\": %s, \"chrono_mass_g\": %s, \"chrono_energy_j\": %s, "
-            "\"compliance\": \"%s\", \"energy_over_limit\": %s, \"min_engagement_m\": %s",
+            "\"compliance\": \"%s\", \"energy_over_limit\": %s, \"min_engagement_m\": %s, "
+            "\"energy_at_min_engagement_j\": %s",
             aw_cli_num (b[0], 40, cp->site.energy_limit_j, 9),
             aw_cli_num (b[1], 40, aw_kg_to_g (cp->chrono_mass_kg), 9),
             aw_cli_num (b[2], 40, cp->chrono_energy_j, 9), compliance_name (cp->compliance),
             cp->energy_over_limit ? "true" : "false",
-            aw_cli_num (b[3], 40, cp->site.min_engagement_m, 9));
+            aw_cli_num (b[3], 40, cp->site.min_engagement_m, 9),
+            aw_cli_num (b[4], 40, cp->site.min_engagement_m > 0.0
+                                  ? aw_range_table_energy_at (t, cp->site.min_engagement_m)
+                                  : NAN, 9));
   printf ("},\n \"rows\": [");
   for (size_t i = 0; i < t->n_rows; i++)
     {
@@ -199,8 +203,13 @@ print_text (const AwAnalysisInput *in, const AwRangeTable *t, const Compliance *
                     aw_kg_to_g (s->mass_kg), cp->energy_j);
         }
       if (isfinite (cp->site.min_engagement_m) && cp->site.min_engagement_m > 0.0)
-        printf ("Minimum engagement distance %.0f m: rows marked \"no\" are closer\n",
-                cp->site.min_engagement_m);
+        {
+          double e = aw_range_table_energy_at (t, cp->site.min_engagement_m);
+          printf ("Minimum engagement distance %.0f m: ", cp->site.min_engagement_m);
+          if (isfinite (e))
+            printf ("about %.2f J left there; ", e);
+          printf ("rows marked \"no\" are closer\n");
+        }
     }
   printf ("\n%8s %8s %8s %8s %7s %7s %8s %8s %10s %5s%s\n", "dist m", "height", "hold cm",
           unit, "time s", "m/s", "energy J", "spin rpm", "drift cm", "band",

@@ -1119,6 +1119,37 @@ test_cli_project (void)
   g_assert_true (json_object_has_member (sum, "energy_limit_j"));
   g_assert_cmpfloat (json_object_get_double_member (sum, "energy_limit_j"), >, 0.0);
 
+  /* the energy left at the minimum engagement distance of the chosen class is the table's
+   * energy there (demo: the marksman class has one, 20 m, on a 10 m row grid) */
+  g_autofree char *err3 = NULL;
+  g_autofree char *args3 = g_strdup_printf ("table --project '%s' --setup 'Designated marksman "
+                                            "(HPA)' --site 'Example: woodland site (typical "
+                                            "values)' --class 'designated marksman' --step-m 10 "
+                                            "--format json", file);
+  g_autofree char *out3 = run_cli (args3, &st, &err3);
+  g_assert_cmpint (st, ==, 0);
+  g_autoptr (JsonParser) p3 = json_parser_new ();
+  g_assert_true (json_parser_load_from_data (p3, out3, -1, NULL));
+  JsonObject *root3 = json_node_get_object (json_parser_get_root (p3));
+  JsonObject *sum3 = json_object_get_object_member (root3, "summary");
+  double med = json_object_get_double_member (sum3, "min_engagement_m");
+  g_assert_cmpfloat (med, >, 0.0);
+  JsonArray *rows3 = json_object_get_array_member (root3, "rows");
+  gboolean found = FALSE;
+  for (guint i = 0; i < json_array_get_length (rows3); i++)
+    {
+      JsonObject *row = json_array_get_object_element (rows3, i);
+      if (fabs (json_object_get_double_member (row, "distance_m") - med) < 1e-9)
+        {
+          g_assert_cmpfloat_with_epsilon (json_object_get_double_member (sum3,
+                                                                         "energy_at_min_"
+                                                                         "engagement_j"),
+                                          json_object_get_double_member (row, "energy_j"), 1e-6);
+          found = TRUE;
+        }
+    }
+  g_assert_true (found);
+
   g_autofree char *args2 = g_strdup_printf ("recommend --project '%s' --setup 'Outdoor rifle' "
                                             "--site 'Example: woodland site (typical values)' "
                                             "--class 'no such class'", file);
