@@ -496,6 +496,8 @@ int
 main (int argc, char **argv)
 {
   gtk_test_init (&argc, &argv, NULL);
+  /* no animations: a widget in mid-transition is a state no check waits for */
+  g_object_set (gtk_settings_get_default (), "gtk-enable-animations", FALSE, NULL);
 
   g_test_add_func ("/gui-sweep/renderer", test_renderer);
   g_test_add ("/gui-sweep/panel/curves", Fixture, NULL, fixture_setup, test_curves,

@@ -361,6 +361,8 @@ main (int    argc,
   /* the in-process "test" accessibility backend (no bus) so accessible properties can be read */
   g_setenv ("GTK_A11Y", "test", TRUE);
   gtk_test_init (&argc, &argv, NULL);
+  /* no animations: a widget in mid-transition is a state no check waits for */
+  g_object_set (gtk_settings_get_default (), "gtk-enable-animations", FALSE, NULL);
 
   for (int dark = 0; dark < 2; dark++)
     {

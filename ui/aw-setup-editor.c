@@ -42,6 +42,7 @@ SETUP_FIELD (mass, s->bb.mass_g)
 SETUP_FIELD (diameter, s->bb.diameter_mm)
 SETUP_FIELD (lift_ratio, s->hop.value)
 SETUP_FIELD (tilt, s->hop.tilt_deg)
+SETUP_FIELD (hop_limit, s->hop.max_lift_ratio)
 SETUP_FIELD (muzzle_height, s->muzzle_height_m)
 SETUP_FIELD (sight_height, s->sighting.sight_height_m)
 SETUP_FIELD (zero, s->sighting.zero_distance_m)
@@ -80,6 +81,11 @@ static const FieldSpec field_specs[] = {
         "climb first."), lift_ratio),
   F ("tilt_field", AW_QTY_DEGREES, -45.0, 45.0, N_ ("Change hop tilt"),
      N_ ("Roll of the spin axis; a positive tilt curves the BB to the right."), tilt),
+  { "hop_limit_field", AW_QTY_NONE, AW_HOP_MAX_LIFT_RATIO_MIN, AW_HOP_MAX_LIFT_RATIO_MAX, TRUE,
+    N_ ("no limit"), N_ ("Change hop limit"),
+    N_ ("The highest lift ratio this replica's hop-up reaches at its strongest, with this setup's "
+       "own BB at its muzzle velocity; auto hop stays within it, and heavier BBs get less lift "
+       "from the same hop-up (leave empty for no limit)."), get_hop_limit, set_hop_limit, FALSE },
   F ("muzzle_height_field", AW_QTY_HEIGHT, 0.05, 10.0, N_ ("Change muzzle height"),
      N_ ("Height of the muzzle above the ground: about 1.5 m standing, 1 m kneeling, 0.3 m prone."),
      muzzle_height),
@@ -143,6 +149,7 @@ struct _AwSetupEditor
   GtkLabel *hop_used_value;
   GtkLabel *spin_value;
   GtkLabel *hop_note_label;
+  GtkLabel *hop_limit_note_label;
   GtkDropDown *angle_dropdown;
   GtkSwitch *own_conditions_switch;
   GtkLabel *conditions_note_label;
@@ -494,6 +501,47 @@ aw_compute_result_describe_problem (const AwComputeResult *result)
     }
 }
 
+/* A note under the hop limit when the limit shapes the result: auto hop held at it, or a given hop
+ * above it (flown as given, but the hop-up cannot reach it). */
+static void
+show_hop_limit_note (AwSetupEditor         *self,
+                     const AwSetup         *s,
+                     const AwComputeResult *r)   /* NULL: no usable result */
+{
+  GtkWidget *note = GTK_WIDGET (self->hop_limit_note_label);
+  g_autofree char *text = NULL;
+
+  if (r == NULL || isnan (s->hop.max_lift_ratio) || !r->band.hop_limited)
+    {
+      gtk_label_set_text (self->hop_limit_note_label, "");
+      gtk_widget_set_visible (note, FALSE);
+      return;
+    }
+  if (r->band.hop_over_limit)
+    {
+      if (isfinite (r->band.hop_limit_lift_ratio))
+        {
+          g_autofree char *lim = aw_format_number (r->band.hop_limit_lift_ratio, 2);
+          /* translators: %s is the largest lift ratio the hop limit allows, e.g. "2,40" */
+          text = g_strdup_printf (_ ("Above the hop limit: the hop-up reaches at most %s with "
+                                     "this BB."), lim);
+        }
+      else
+        text = g_strdup (_ ("Above the hop limit: the hop-up cannot reach this hop."));
+      gtk_widget_add_css_class (note, "aw-status-warning");
+      gtk_widget_remove_css_class (note, "dim-label");
+    }
+  else
+    {
+      text = g_strdup (_ ("Auto hop is held at the hop limit: a stronger hop-up would reach "
+                          "further."));
+      gtk_widget_add_css_class (note, "dim-label");
+      gtk_widget_remove_css_class (note, "aw-status-warning");
+    }
+  gtk_label_set_text (self->hop_limit_note_label, text);
+  gtk_widget_set_visible (note, TRUE);
+}
+
 static void
 show_result (AwSetupEditor *self)
 {
@@ -508,6 +556,7 @@ show_result (AwSetupEditor *self)
   if (r == NULL)
     {
       gtk_widget_add_css_class (GTK_WIDGET (self->band_range_value), "dim-label");
+      show_hop_limit_note (self, s, NULL);
       return;
     }
   gtk_widget_remove_css_class (GTK_WIDGET (self->band_range_value), "dim-label");
@@ -546,6 +595,8 @@ show_result (AwSetupEditor *self)
     }
   else
     gtk_label_set_text (self->spin_value, "—");
+
+  show_hop_limit_note (self, s, ok ? r : NULL);
 
   problem = aw_compute_result_describe_problem (r);
   gtk_label_set_text (self->status_label, problem ? problem : "");
@@ -797,6 +848,7 @@ aw_setup_editor_class_init (AwSetupEditorClass *klass)
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, hop_used_value);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, spin_value);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, hop_note_label);
+  gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, hop_limit_note_label);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, angle_dropdown);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, own_conditions_switch);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, conditions_note_label);
