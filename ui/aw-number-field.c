@@ -191,8 +191,8 @@ update_unit (AwNumberField *self)
 {
   const char *unit = aw_qty_unit (self->quantity, self->units);
 
+  /* an empty unit still takes its column, so the entries of a group line up */
   gtk_label_set_text (self->unit_label, unit);
-  gtk_widget_set_visible (GTK_WIDGET (self->unit_label), unit[0] != '\0');
 }
 
 static void

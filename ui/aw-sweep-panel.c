@@ -91,7 +91,7 @@ struct _AwSweepPanel
   GtkLabel *at_label;
   GtkLabel *at_unit;
   GtkLabel *status_label;
-  GtkBox *setups_box;
+  GtkFlowBox *setups_box;
   GtkButton *run_button;
   GtkButton *stop_button;
   GtkProgressBar *progress;
@@ -376,7 +376,7 @@ rebuild_setups (AwSweepPanel *self)
   GtkWidget *child;
 
   while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->setups_box))) != NULL)
-    gtk_box_remove (self->setups_box, child);
+    gtk_flow_box_remove (self->setups_box, child);
   if (self->project == NULL)
     return;
   for (guint i = 0; i < self->project->setups->len; i++)
@@ -387,7 +387,7 @@ rebuild_setups (AwSweepPanel *self)
       gtk_check_button_set_active (GTK_CHECK_BUTTON (check),
                                    !g_hash_table_contains (self->excluded, s->name));
       g_signal_connect (check, "toggled", G_CALLBACK (on_setup_toggled), self);
-      gtk_box_append (self->setups_box, check);
+      gtk_flow_box_append (self->setups_box, check);
     }
 }
 
@@ -476,10 +476,12 @@ aw_sweep_panel_set_setup_included (AwSweepPanel *self, const char *name, gboolea
   g_return_if_fail (AW_IS_SWEEP_PANEL (self));
   g_return_if_fail (name != NULL);
 
-  for (check = gtk_widget_get_first_child (GTK_WIDGET (self->setups_box)); check;
-       check = gtk_widget_get_next_sibling (check))
+  for (GtkWidget *cell = gtk_widget_get_first_child (GTK_WIDGET (self->setups_box)); cell;
+       cell = gtk_widget_get_next_sibling (cell))
     {
-      const char *n = g_object_get_data (G_OBJECT (check), "aw-setup-name");
+      const char *n;
+      check = gtk_flow_box_child_get_child (GTK_FLOW_BOX_CHILD (cell));
+      n = check ? g_object_get_data (G_OBJECT (check), "aw-setup-name") : NULL;
       if (n && g_str_equal (n, name))
         {
           /* the toggled handler records it */
