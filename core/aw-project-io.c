@@ -95,6 +95,25 @@ problem_add (Ctx *ctx, const char *path, const char *fmt, ...)
   ctx->count++;
 }
 
+/* A problem at member `key` of `path`; the joined path is only built when there is a problem. */
+static void
+problem_add_at (Ctx *ctx, const char *path, const char *key, const char *fmt, ...)
+  G_GNUC_PRINTF (4, 5);
+
+static void
+problem_add_at (Ctx *ctx, const char *path, const char *key, const char *fmt, ...)
+{
+  va_list ap;
+  va_start (ap, fmt);
+  char *msg = g_strdup_vprintf (fmt, ap);
+  va_end (ap);
+  char *line = (path != NULL && *path) ? g_strdup_printf ("%s.%s: %s", path, key, msg)
+                                       : g_strdup_printf ("%s: %s", key, msg);
+  g_free (msg);
+  g_ptr_array_add (ctx->problems, line);
+  ctx->count++;
+}
+
 static char *
 path_member (const char *path, const char *key)
 {
@@ -406,7 +425,6 @@ read_number (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
   JsonNode *n = member (ctx, o, path, key, need);
   if (n == NULL)
     return need != REQUIRED;
-  char *p = path_member (path, key);
   gboolean ok = FALSE;
   if (JSON_NODE_HOLDS_NULL (n) && need == NULLABLE)
     {
@@ -416,7 +434,7 @@ read_number (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
   else if (!JSON_NODE_HOLDS_VALUE (n)
            || (json_node_get_value_type (n) != G_TYPE_INT64
                && json_node_get_value_type (n) != G_TYPE_DOUBLE))
-    problem_add (ctx, p, "must be a number%s (found %s)", need == NULLABLE ? " or null" : "",
+    problem_add_at (ctx, path, key, "must be a number%s (found %s)", need == NULLABLE ? " or null" : "",
                  node_kind (n));
   else
     {
@@ -424,14 +442,17 @@ read_number (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
                                                               : json_node_get_double (n);
       char found[G_ASCII_DTOSTR_BUF_SIZE], blo[G_ASCII_DTOSTR_BUF_SIZE],
            bhi[G_ASCII_DTOSTR_BUF_SIZE];
-      format_number (found, sizeof found, v);
       if (!isfinite (v))
-        problem_add (ctx, p, "must be a finite number (found %s)", found);
+        {
+          format_number (found, sizeof found, v);
+          problem_add_at (ctx, path, key, "must be a finite number (found %s)", found);
+        }
       else if (v < lo || v > hi)
         {
+          format_number (found, sizeof found, v);
           format_number (blo, sizeof blo, lo);
           format_number (bhi, sizeof bhi, hi);
-          problem_add (ctx, p, "must be between %s and %s%s%s (found %s)", blo, bhi,
+          problem_add_at (ctx, path, key, "must be between %s and %s%s%s (found %s)", blo, bhi,
                        *unit ? " " : "", unit, found);
         }
       else
@@ -440,7 +461,6 @@ read_number (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
           ok = TRUE;
         }
     }
-  g_free (p);
   return ok;
 }
 
@@ -453,7 +473,6 @@ read_string (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
   JsonNode *n = member (ctx, o, path, key, need);
   if (n == NULL)
     return need != REQUIRED;
-  char *p = path_member (path, key);
   gboolean ok = FALSE;
   if (JSON_NODE_HOLDS_NULL (n) && need == NULLABLE)
     {
@@ -461,17 +480,17 @@ read_string (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
       ok = TRUE;
     }
   else if (!JSON_NODE_HOLDS_VALUE (n) || json_node_get_value_type (n) != G_TYPE_STRING)
-    problem_add (ctx, p, "must be a string (found %s)", node_kind (n));
+    problem_add_at (ctx, path, key, "must be a string (found %s)", node_kind (n));
   else
     {
       const char *s = json_node_get_string (n);
       glong chars = g_utf8_validate (s, -1, NULL) ? g_utf8_strlen (s, -1) : -1;
       if (chars < 0)
-        problem_add (ctx, p, "must be valid UTF-8 text");
+        problem_add_at (ctx, path, key, "must be valid UTF-8 text");
       else if (non_empty && *s == '\0')
-        problem_add (ctx, p, "must not be empty");
+        problem_add_at (ctx, path, key, "must not be empty");
       else if (chars > (glong) max_chars)
-        problem_add (ctx, p, "must be at most %u characters long (found %ld)", max_chars, chars);
+        problem_add_at (ctx, path, key, "must be at most %u characters long (found %ld)", max_chars, chars);
       else
         {
           g_free (*out);
@@ -479,7 +498,6 @@ read_string (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
           ok = TRUE;
         }
     }
-  g_free (p);
   return ok;
 }
 
@@ -510,10 +528,9 @@ read_choice (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
   JsonNode *n = member (ctx, o, path, key, need);
   if (n == NULL)
     return need != REQUIRED;
-  char *p = path_member (path, key);
   gboolean ok = FALSE;
   if (!JSON_NODE_HOLDS_VALUE (n) || json_node_get_value_type (n) != G_TYPE_STRING)
-    problem_add (ctx, p, "must be a string (found %s)", node_kind (n));
+    problem_add_at (ctx, path, key, "must be a string (found %s)", node_kind (n));
   else
     {
       const char *s = json_node_get_string (n);
@@ -531,12 +548,11 @@ read_choice (Ctx *ctx, JsonObject *o, const char *path, const char *key, Need ne
                                     i == 0 ? "" : choices[i + 1] == NULL ? " or " : ", ",
                                     choices[i]);
           char *q = quote_for_problem (s);
-          problem_add (ctx, p, "must be %s (found %s)", list->str, q);
+          problem_add_at (ctx, path, key, "must be %s (found %s)", list->str, q);
           g_free (q);
           g_string_free (list, TRUE);
         }
     }
-  g_free (p);
   return ok;
 }
 
@@ -878,30 +894,35 @@ parse_chrono (Ctx *ctx, JsonNode *node, const char *path)
           for (guint i = 0; i < n; i++)
             {
               JsonNode *e = json_array_get_element (vel, i);
-              char *ip = path_index (vp, i);
               if (!JSON_NODE_HOLDS_VALUE (e)
                   || (json_node_get_value_type (e) != G_TYPE_INT64
                       && json_node_get_value_type (e) != G_TYPE_DOUBLE))
-                problem_add (ctx, ip, "must be a number (found %s)", node_kind (e));
-              else
                 {
-                  double x = json_node_get_value_type (e) == G_TYPE_INT64
-                             ? (double) json_node_get_int (e) : json_node_get_double (e);
-                  char b[G_ASCII_DTOSTR_BUF_SIZE], blo[G_ASCII_DTOSTR_BUF_SIZE],
-                       bhi[G_ASCII_DTOSTR_BUF_SIZE];
-                  format_number (b, sizeof b, x);
-                  format_number (blo, sizeof blo, lo);
-                  format_number (bhi, sizeof bhi, hi);
-                  if (!isfinite (x))
-                    problem_add (ctx, ip, "must be a finite number (found %s)", b);
-                  else if (!unit_ok)
-                    ; /* the unit problem is reported; ranges depend on it */
-                  else if (x < lo || x > hi)
-                    problem_add (ctx, ip, "must be between %s and %s %s (found %s)", blo, bhi,
-                                 unit, b);
-                  else
-                    g_array_append_val (c->velocities, x);
+                  char *ip = path_index (vp, i);
+                  problem_add (ctx, ip, "must be a number (found %s)", node_kind (e));
+                  g_free (ip);
+                  continue;
                 }
+              double x = json_node_get_value_type (e) == G_TYPE_INT64
+                         ? (double) json_node_get_int (e) : json_node_get_double (e);
+              if (isfinite (x) && (!unit_ok || (x >= lo && x <= hi)))
+                {
+                  /* the common case: no message, nothing formatted */
+                  if (unit_ok)
+                    g_array_append_val (c->velocities, x);
+                  continue;
+                }
+              char b[G_ASCII_DTOSTR_BUF_SIZE], blo[G_ASCII_DTOSTR_BUF_SIZE],
+                   bhi[G_ASCII_DTOSTR_BUF_SIZE];
+              char *ip = path_index (vp, i);
+              format_number (b, sizeof b, x);
+              format_number (blo, sizeof blo, lo);
+              format_number (bhi, sizeof bhi, hi);
+              if (!isfinite (x))
+                problem_add (ctx, ip, "must be a finite number (found %s)", b);
+              else
+                problem_add (ctx, ip, "must be between %s and %s %s (found %s)", blo, bhi,
+                             unit, b);
               g_free (ip);
             }
         }
