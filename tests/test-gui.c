@@ -16,6 +16,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "aw-chrono-dialog.h"
 #include "aw-document.h"
 #include "aw-format.h"
 #include "aw-number-field.h"
@@ -1340,6 +1341,209 @@ test_german (void)
   close_window (window);
 }
 
+/* ---- chrono strings and measured points ---- */
+
+static void
+set_shots (GtkWindow  *dialog,
+           const char *text)
+{
+  GtkWidget *view = aw_edit_dialog_get_widget (dialog, "shots");
+  gtk_text_buffer_set_text (gtk_text_view_get_buffer (GTK_TEXT_VIEW (view)), text, -1);
+}
+
+static const char *
+dialog_label (GtkWindow  *dialog,
+              const char *name)
+{
+  return gtk_label_get_text (GTK_LABEL (aw_edit_dialog_get_widget (dialog, name)));
+}
+
+static void
+test_chrono_dialog (void)
+{
+  AwWindow *window = open_demo ();
+  AwDocument *doc = aw_window_get_document (window);
+  AwSetupEditor *editor = AW_SETUP_EDITOR (aw_window_get_editor (window));
+  g_autofree char *dir = g_dir_make_tmp ("aw-gui-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "chrono.arcw", NULL);
+  g_autofree char *backup = aw_project_backup_path (path);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GString) shown = g_string_new (NULL);
+  guint before = setup_at (window, 0)->chrono->len;
+  const AwChronoString *c;
+  GtkWindow *dialog;
+
+  /* a new string through the dialog's controls */
+  dialog = aw_setup_editor_open_chrono (editor, -1);
+  g_assert_nonnull (dialog);
+  type_into (AW_NUMBER_FIELD (aw_edit_dialog_get_widget (dialog, "mass")), "0.25");
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (aw_edit_dialog_get_widget (dialog, "unit")), 0);
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (aw_edit_dialog_get_widget (dialog, "hop")), 2);
+  type_into (AW_NUMBER_FIELD (aw_edit_dialog_get_widget (dialog, "temperature")), "18");
+  gtk_editable_set_text (GTK_EDITABLE (aw_edit_dialog_get_widget (dialog, "date")), "2025-03-02");
+  gtk_editable_set_text (GTK_EDITABLE (aw_edit_dialog_get_widget (dialog, "note")), "new spring");
+  set_shots (dialog, "100, 101 99.5\n100.5 102,98 100 101 99 100");
+  /* statistics worked by hand: sum 1001 over 10 shots, max 102, min 98 */
+  g_test_message ("%s", dialog_label (dialog, "stats"));
+  g_assert_nonnull (strstr (dialog_label (dialog, "stats"), "n 10"));
+  g_assert_nonnull (strstr (dialog_label (dialog, "stats"), "mean 100.1\u202fm/s"));
+  g_assert_nonnull (strstr (dialog_label (dialog, "stats"), "max 102.0\u202fm/s"));
+  g_assert_nonnull (strstr (dialog_label (dialog, "stats"), "ES 4.0\u202fm/s"));
+  /* ½ · 0.25 g · (100.1 m/s)² = 1.2525 J, shown as 1.25 J */
+  g_assert_nonnull (strstr (dialog_label (dialog, "stats"), "1.25\u202fJ at the mean"));
+  g_assert_true (gtk_widget_get_sensitive (aw_edit_dialog_get_widget (dialog, "ok")));
+  g_assert_true (aw_edit_dialog_accept (dialog));
+  wait_idle (window);
+
+  g_assert_cmpuint (setup_at (window, 0)->chrono->len, ==, before + 1);
+  c = g_ptr_array_index (setup_at (window, 0)->chrono, before);
+  g_assert_cmpfloat (c->bb_mass_g, ==, 0.25);
+  g_assert_cmpint (c->hop, ==, AW_CHRONO_HOP_ON);
+  g_assert_cmpint (c->unit, ==, AW_VELOCITY_UNIT_MPS);
+  g_assert_cmpuint (c->velocities->len, ==, 10);
+  g_assert_cmpfloat (g_array_index (c->velocities, double, 2), ==, 99.5);
+  g_assert_cmpfloat (g_array_index (c->velocities, double, 5), ==, 98.0);
+  g_assert_cmpfloat (c->temperature_c, ==, 18.0);
+  g_assert_cmpstr (c->date, ==, "2025-03-02");
+  g_assert_cmpstr (c->note, ==, "new spring");
+  g_assert_cmpstr (aw_document_get_undo_label (doc), ==, "Add chrono string");
+
+  /* the editor's list shows it with its BB mass */
+  collect_labels (aw_setup_editor_get_field (editor, "chrono_box"), shown);
+  g_test_message ("%s", shown->str);
+  /* sample SD by hand: squared deviations from 100.1 sum to 11.4; √(11.4 / 9) = 1.125 */
+  g_assert_nonnull (strstr (shown->str, "0.25\u202fg · hop on · 10 shots\n"
+                                        "mean 100.1 m/s\n≈ 1.25\u202fJ · SD 1.13 · ES 4.0 m/s"));
+
+  /* a bad shot is refused, naming it, and nothing changes */
+  {
+    g_autoptr (AwProject) held = aw_project_copy (aw_document_get_project (doc));
+
+    dialog = aw_setup_editor_open_chrono (editor, (int) before);
+    g_assert_nonnull (dialog);
+    set_shots (dialog, "100 101\n99 1o2 100");
+    g_assert_cmpstr (dialog_label (dialog, "message"), ==, "Shot 4: “1o2” is not a number.");
+    g_assert_false (gtk_widget_get_sensitive (aw_edit_dialog_get_widget (dialog, "ok")));
+    g_assert_false (aw_edit_dialog_accept (dialog));
+    set_shots (dialog, "100 101 350");
+    g_assert_cmpstr (dialog_label (dialog, "message"), ==, "Shot 3: 350 is outside 1 … 300 m/s.");
+    g_assert_false (aw_edit_dialog_accept (dialog));
+    set_shots (dialog, "  ");
+    g_assert_false (aw_edit_dialog_accept (dialog));
+    set_shots (dialog, "100 101");
+    gtk_editable_set_text (GTK_EDITABLE (aw_edit_dialog_get_widget (dialog, "date")), "2025-02-30");
+    g_assert_nonnull (strstr (dialog_label (dialog, "message"), "Date"));
+    g_assert_false (aw_edit_dialog_accept (dialog));
+    g_assert_true (aw_project_equal (held, aw_document_get_project (doc)));
+
+    /* fixed: an edit in fps, one undo step */
+    gtk_editable_set_text (GTK_EDITABLE (aw_edit_dialog_get_widget (dialog, "date")), "");
+    gtk_drop_down_set_selected (GTK_DROP_DOWN (aw_edit_dialog_get_widget (dialog, "unit")), 1);
+    set_shots (dialog, "330 331 329");
+    g_assert_cmpstr (dialog_label (dialog, "message"), ==, "");
+    g_assert_true (aw_edit_dialog_accept (dialog));
+    c = g_ptr_array_index (setup_at (window, 0)->chrono, before);
+    g_assert_cmpint (c->unit, ==, AW_VELOCITY_UNIT_FPS);
+    g_assert_cmpuint (c->velocities->len, ==, 3);
+    g_assert_null (c->date);
+    g_assert_cmpstr (aw_document_get_undo_label (doc), ==, "Edit chrono string");
+    aw_document_undo (doc);
+    g_assert_true (aw_project_equal (held, aw_document_get_project (doc)));
+  }
+
+  /* undo removes the string, redo brings it back */
+  aw_document_undo (doc);
+  g_assert_cmpuint (setup_at (window, 0)->chrono->len, ==, before);
+  aw_document_redo (doc);
+  g_assert_cmpuint (setup_at (window, 0)->chrono->len, ==, before + 1);
+
+  /* measured points: switch the model, add one, refuse a duplicate mass, delete */
+  {
+    GtkDropDown *model = GTK_DROP_DOWN (aw_setup_editor_get_field (editor,
+                                                                   "energy_model_dropdown"));
+    guint n;
+
+    gtk_drop_down_set_selected (model, AW_POWER_MEASURED);
+    wait_idle (window);
+    n = setup_at (window, 0)->replica.points->len;
+    g_assert_cmpuint (n, >=, 1);
+    g_assert_true (gtk_widget_get_visible (aw_setup_editor_get_field (editor, "points_box")));
+
+    dialog = aw_setup_editor_open_point (editor, -1);
+    type_into (AW_NUMBER_FIELD (aw_edit_dialog_get_widget (dialog, "mass")), "0.36");
+    type_into (AW_NUMBER_FIELD (aw_edit_dialog_get_widget (dialog, "velocity")), "80");
+    /* ½ · 0.36 g · (80 m/s)² = 1.152 J */
+    g_assert_cmpstr (dialog_label (dialog, "stats"), ==, "Energy: 1.15\u202fJ");
+    g_assert_true (aw_edit_dialog_accept (dialog));
+    g_assert_cmpuint (setup_at (window, 0)->replica.points->len, ==, n + 1);
+    g_assert_cmpfloat (g_array_index (setup_at (window, 0)->replica.points, AwReplicaPoint,
+                                      n).mass_g, ==, 0.36);
+    g_assert_cmpstr (aw_document_get_undo_label (doc), ==, "Add measured point");
+
+    dialog = aw_setup_editor_open_point (editor, -1);
+    type_into (AW_NUMBER_FIELD (aw_edit_dialog_get_widget (dialog, "mass")), "0.36");
+    g_assert_nonnull (strstr (dialog_label (dialog, "message"), "already"));
+    g_assert_false (aw_edit_dialog_accept (dialog));
+    type_into (AW_NUMBER_FIELD (aw_edit_dialog_get_widget (dialog, "velocity")), "400");
+    g_assert_false (gtk_widget_get_sensitive (aw_edit_dialog_get_widget (dialog, "ok")));
+    gtk_window_destroy (dialog);
+    g_assert_cmpuint (setup_at (window, 0)->replica.points->len, ==, n + 1);
+
+    /* the last point of the measured model stays */
+    while (setup_at (window, 0)->replica.points->len > 1)
+      aw_setup_editor_delete_point (editor, 0);
+    aw_setup_editor_delete_point (editor, 0);
+    g_assert_cmpuint (setup_at (window, 0)->replica.points->len, ==, 1);
+    g_assert_cmpfloat (g_array_index (setup_at (window, 0)->replica.points, AwReplicaPoint,
+                                      0).mass_g, ==, 0.36);
+    aw_document_undo (doc);
+    g_assert_cmpuint (setup_at (window, 0)->replica.points->len, ==, n + 1);
+  }
+
+  /* save and reload keep them */
+  wait_idle (window);
+  g_assert_true (aw_window_save_to (window, file, &error));
+  g_assert_no_error (error);
+  {
+    g_autoptr (AwProject) reread = aw_project_load_file (path, AW_PROJECT_LOAD_STRICT, NULL,
+                                                         &error);
+    const AwSetup *s;
+    g_assert_no_error (error);
+    g_assert_true (aw_project_equal (reread, aw_document_get_project (doc)));
+    s = g_ptr_array_index (reread->setups, 0);
+    g_assert_cmpuint (s->chrono->len, ==, before + 1);
+    g_assert_cmpfloat (((AwChronoString *) s->chrono->pdata[before])->bb_mass_g, ==, 0.25);
+    g_assert_cmpint (s->replica.energy_model, ==, AW_POWER_MEASURED);
+  }
+
+  /* delete the string: one undo step */
+  aw_setup_editor_delete_chrono (editor, (int) before);
+  g_assert_cmpuint (setup_at (window, 0)->chrono->len, ==, before);
+  g_assert_cmpstr (aw_document_get_undo_label (doc), ==, "Delete chrono string");
+
+  g_remove (path);
+  g_remove (backup);
+  g_rmdir (dir);
+  close_window (window);
+}
+
+/* shots in the German locale: a comma is the decimal separator */
+static void
+check_german_shots (void)
+{
+  g_autoptr (GArray) v = g_array_new (FALSE, FALSE, sizeof (double));
+  g_autofree char *problem = NULL;
+
+  g_assert_true (aw_chrono_parse_shots ("281,5; 282 283,5\n280", AW_VELOCITY_UNIT_FPS, v, NULL));
+  g_assert_cmpuint (v->len, ==, 4);
+  g_assert_cmpfloat (g_array_index (v, double, 0), ==, 281.5);
+  g_assert_cmpfloat (g_array_index (v, double, 2), ==, 283.5);
+  g_assert_nonnull (strstr (aw_chrono_shots_hint (), "Semikolon"));
+  g_assert_false (aw_chrono_parse_shots ("281,5; x", AW_VELOCITY_UNIT_FPS, v, &problem));
+  g_assert_cmpstr (problem, ==, "Schuss 2: „x“ ist keine Zahl.");
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -1363,6 +1567,7 @@ main (int   argc,
       if (setlocale (LC_ALL, "de_DE.UTF-8") == NULL)
         g_error ("the de_DE.UTF-8 locale is missing: run .ci/install-deps (locale-gen)");
       g_test_add_func ("/gui/german/window", test_german);
+      g_test_add_func ("/gui/german/chrono-shots", check_german_shots);
     }
   else
     {
@@ -1380,6 +1585,7 @@ main (int   argc,
       g_test_add_func ("/gui/window/autosave", test_autosave);
       g_test_add_func ("/gui/window/print", test_print_actions);
       g_test_add_func ("/gui/window/sweep-view", test_sweep_view);
+      g_test_add_func ("/gui/window/chrono-dialog", test_chrono_dialog);
     }
   status = g_test_run ();
   g_clear_object (&settings);

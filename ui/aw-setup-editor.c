@@ -7,6 +7,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "aw-chrono-dialog.h"
 #include "aw-number-field.h"
 #include "aw-setup-editor.h"
 #include "aw-units.h"
@@ -143,8 +144,8 @@ struct _AwSetupEditor
   GtkEntry *type_entry;
   GtkDropDown *power_dropdown;
   GtkDropDown *energy_model_dropdown;
-  GtkLabel *points_label;
-  GtkLabel *chrono_label;
+  GtkBox *points_box;
+  GtkBox *chrono_box;
   GtkDropDown *hop_dropdown;
   GtkLabel *hop_used_value;
   GtkLabel *spin_value;
@@ -165,6 +166,11 @@ struct _AwSetupEditor
   int index;
   AwUnitSystem units;
   int updating;
+  GtkListBox *points_list;
+  GtkListBox *chrono_list;
+  GtkWidget *add_point_button;
+  char *points_shown;        /* text of the rows last built, to rebuild only on change */
+  char *chrono_shown;
 };
 
 G_DEFINE_FINAL_TYPE (AwSetupEditor, aw_setup_editor, GTK_TYPE_WIDGET)
@@ -623,46 +629,7 @@ set_entry_text (GtkEntry   *entry,
     gtk_editable_set_text (GTK_EDITABLE (entry), text ? text : "");
 }
 
-static char *
-describe_chrono (AwSetupEditor *self,
-                 const AwSetup *s)
-{
-  GString *str = g_string_new (NULL);
-
-  if (s->chrono->len == 0)
-    return g_strdup (_ ("No chrono strings recorded for this setup."));
-
-  for (guint i = 0; i < s->chrono->len; i++)
-    {
-      const AwChronoString *c = g_ptr_array_index (s->chrono, i);
-      AwChronoStats st;
-      g_autofree char *mass = aw_qty_format (AW_QTY_MASS_G, self->units, c->bb_mass_g);
-
-      if (i > 0)
-        g_string_append_c (str, '\n');
-      if (!aw_chrono_string_stats (c, &st))
-        {
-          /* translators: a chrono string that has no usable shots, %s is the BB mass */
-          g_string_append_printf (str, _ ("%s: no usable shots"), mass);
-          continue;
-        }
-      {
-        g_autofree char *mean = aw_qty_format (AW_QTY_VELOCITY, self->units, st.mean_mps);
-        g_autofree char *sd = aw_qty_format (AW_QTY_VELOCITY, self->units, st.sd_mps);
-        g_autofree char *es = aw_qty_format (AW_QTY_VELOCITY, self->units, st.es_mps);
-        g_autofree char *energy = aw_qty_format (AW_QTY_ENERGY, self->units, st.energy_mean_j);
-
-        /* translators: one chrono string: BB mass, number of shots, mean velocity, mean energy,
-         * standard deviation and extreme spread */
-        g_string_append_printf (str, g_dngettext (GETTEXT_PACKAGE,
-                                                  "%s: %u shot, mean %s (%s), SD %s, ES %s",
-                                                  "%s: %u shots, mean %s (%s), SD %s, ES %s",
-                                                  st.n),
-                                mass, st.n, mean, energy, sd, es);
-      }
-    }
-  return g_string_free (str, FALSE);
-}
+static void rebuild_lists (AwSetupEditor *self, const AwSetup *s);
 
 void
 aw_setup_editor_refresh (AwSetupEditor *self)
@@ -733,24 +700,8 @@ aw_setup_editor_refresh (AwSetupEditor *self)
     gtk_widget_set_visible (w, s->replica.energy_model == AW_POWER_CREEP);
     gtk_widget_set_visible (aw_setup_editor_get_field (self, "ref_mass_field"), !measured);
     gtk_widget_set_visible (aw_setup_editor_get_field (self, "ref_velocity_field"), !measured);
-    gtk_widget_set_visible (GTK_WIDGET (self->points_label), measured);
-    if (measured)
-      {
-        GString *str = g_string_new (_ ("Measured with each BB:"));
-        for (guint i = 0; i < s->replica.points->len; i++)
-          {
-            const AwReplicaPoint *pt = &g_array_index (s->replica.points, AwReplicaPoint, i);
-            g_autofree char *m = aw_qty_format (AW_QTY_MASS_G, self->units, pt->mass_g);
-            g_autofree char *v = aw_qty_format (AW_QTY_VELOCITY, self->units, pt->velocity_mps);
-            g_string_append_printf (str, "\n%s → %s", m, v);
-          }
-        gtk_label_set_text (self->points_label, str->str);
-        g_string_free (str, TRUE);
-      }
-    {
-      g_autofree char *chrono = describe_chrono (self, s);
-      gtk_label_set_text (self->chrono_label, chrono);
-    }
+    gtk_widget_set_visible (GTK_WIDGET (self->points_box), measured);
+    rebuild_lists (self, s);
 
     gtk_widget_set_visible (aw_setup_editor_get_field (self, "lift_ratio_field"),
                             s->hop.mode == AW_HOP_MODE_LIFT_RATIO);
@@ -798,6 +749,357 @@ document_changed_cb (AwSetupEditor *self,
   aw_setup_editor_refresh (self);
 }
 
+/* ---- chrono strings and measured points ---- */
+
+static GtkWindow *
+parent_window (AwSetupEditor *self)
+{
+  GtkRoot *root = gtk_widget_get_root (GTK_WIDGET (self));
+  return GTK_IS_WINDOW (root) ? GTK_WINDOW (root) : NULL;
+}
+
+GtkWindow *
+aw_setup_editor_open_chrono (AwSetupEditor *self,
+                             int            item)
+{
+  GtkWindow *dialog;
+
+  g_return_val_if_fail (AW_IS_SETUP_EDITOR (self), NULL);
+  if (current_setup (self) == NULL)
+    return NULL;
+  aw_document_seal (self->document);
+  dialog = aw_chrono_dialog_new (parent_window (self), self->document, self->index, item,
+                                 self->units);
+  gtk_window_present (dialog);
+  return dialog;
+}
+
+GtkWindow *
+aw_setup_editor_open_point (AwSetupEditor *self,
+                            int            item)
+{
+  GtkWindow *dialog;
+
+  g_return_val_if_fail (AW_IS_SETUP_EDITOR (self), NULL);
+  if (current_setup (self) == NULL)
+    return NULL;
+  aw_document_seal (self->document);
+  dialog = aw_point_dialog_new (parent_window (self), self->document, self->index, item,
+                                self->units);
+  gtk_window_present (dialog);
+  return dialog;
+}
+
+void
+aw_setup_editor_delete_chrono (AwSetupEditor *self,
+                               int            item)
+{
+  AwSetup *s = NULL;
+  AwProject *p;
+
+  g_return_if_fail (AW_IS_SETUP_EDITOR (self));
+  p = begin_edit (self, &s);
+  if (p == NULL)
+    return;
+  if (item < 0 || (guint) item >= s->chrono->len)
+    {
+      aw_project_free (p);
+      return;
+    }
+  g_ptr_array_remove_index (s->chrono, item);
+  commit (self, p, _ ("Delete chrono string"), NULL);
+}
+
+void
+aw_setup_editor_delete_point (AwSetupEditor *self,
+                              int            item)
+{
+  AwSetup *s = NULL;
+  AwProject *p;
+
+  g_return_if_fail (AW_IS_SETUP_EDITOR (self));
+  p = begin_edit (self, &s);
+  if (p == NULL)
+    return;
+  /* the measured model needs one point at least */
+  if (item < 0 || (guint) item >= s->replica.points->len
+      || (s->replica.energy_model == AW_POWER_MEASURED && s->replica.points->len <= 1))
+    {
+      aw_project_free (p);
+      return;
+    }
+  g_array_remove_index (s->replica.points, item);
+  commit (self, p, _ ("Delete measured point"), NULL);
+}
+
+static int
+row_item (GtkWidget *button)
+{
+  return GPOINTER_TO_INT (g_object_get_data (G_OBJECT (button), "aw-item"));
+}
+
+static void
+chrono_edit_cb (GtkWidget     *button,
+                AwSetupEditor *self)
+{
+  aw_setup_editor_open_chrono (self, row_item (button));
+}
+
+static void
+chrono_delete_cb (GtkWidget     *button,
+                  AwSetupEditor *self)
+{
+  aw_setup_editor_delete_chrono (self, row_item (button));
+}
+
+static void
+point_edit_cb (GtkWidget     *button,
+               AwSetupEditor *self)
+{
+  aw_setup_editor_open_point (self, row_item (button));
+}
+
+static void
+point_delete_cb (GtkWidget     *button,
+                 AwSetupEditor *self)
+{
+  aw_setup_editor_delete_point (self, row_item (button));
+}
+
+static void
+row_activated_cb (GtkListBox    *list,
+                  GtkListBoxRow *row,
+                  AwSetupEditor *self)
+{
+  int item = gtk_list_box_row_get_index (row);
+
+  if (list == self->chrono_list)
+    aw_setup_editor_open_chrono (self, item);
+  else
+    aw_setup_editor_open_point (self, item);
+}
+
+static void
+add_chrono_cb (AwSetupEditor *self)
+{
+  aw_setup_editor_open_chrono (self, -1);
+}
+
+static void
+add_point_cb (AwSetupEditor *self)
+{
+  aw_setup_editor_open_point (self, -1);
+}
+
+static GtkWidget *
+icon_button (const char *icon,
+             const char *tooltip,
+             int         item,
+             GCallback   cb,
+             gpointer    data)
+{
+  GtkWidget *b = gtk_button_new_from_icon_name (icon);
+
+  gtk_widget_add_css_class (b, "flat");
+  gtk_widget_set_valign (b, GTK_ALIGN_CENTER);
+  gtk_widget_set_tooltip_text (b, tooltip);
+  gtk_accessible_update_property (GTK_ACCESSIBLE (b), GTK_ACCESSIBLE_PROPERTY_LABEL, tooltip, -1);
+  g_object_set_data (G_OBJECT (b), "aw-item", GINT_TO_POINTER (item));
+  g_signal_connect (b, "clicked", cb, data);
+  return b;
+}
+
+static void
+list_clear (GtkListBox *list)
+{
+  GtkWidget *child;
+
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (list))) != NULL)
+    gtk_list_box_remove (list, child);
+}
+
+static void
+list_add_row (GtkListBox *list,
+              const char *text,
+              GtkWidget  *edit,
+              GtkWidget  *del)
+{
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 2);
+  GtkWidget *label = gtk_label_new (text);
+
+  gtk_label_set_xalign (GTK_LABEL (label), 0);
+  /* lines are short and end in an ellipsis when the panel is narrow (the full text is the
+   * tooltip): a wrapping label would ask for more height at some widths than at others */
+  gtk_label_set_ellipsize (GTK_LABEL (label), PANGO_ELLIPSIZE_END);
+  gtk_widget_set_tooltip_text (label, text);
+  gtk_widget_set_hexpand (label, TRUE);
+  gtk_widget_add_css_class (label, "caption");
+  gtk_widget_set_margin_start (box, 6);
+  gtk_widget_set_margin_top (box, 4);
+  gtk_widget_set_margin_bottom (box, 4);
+  gtk_box_append (GTK_BOX (box), label);
+  gtk_box_append (GTK_BOX (box), edit);
+  gtk_box_append (GTK_BOX (box), del);
+  gtk_list_box_append (list, box);
+}
+
+/* One chrono string in a line or two: BB mass (always with the velocities), hop, n, mean in the
+ * string's unit (and in the window's unit when that differs), energy, SD and ES. */
+static char *
+chrono_row_text (AwSetupEditor        *self,
+                 const AwChronoString *c)
+{
+  AwChronoStats st;
+  g_autofree char *mass = aw_qty_format (AW_QTY_MASS_G, self->units, c->bb_mass_g);
+  const char *hop = c->hop == AW_CHRONO_HOP_ON ? _ ("hop on")
+                    : c->hop == AW_CHRONO_HOP_OFF ? _ ("hop off") : _ ("hop not recorded");
+  gboolean fps = c->unit == AW_VELOCITY_UNIT_FPS;
+  double k = fps ? 1.0 / 0.3048 : 1.0;
+  const char *sym = fps ? "fps" : "m/s";
+
+  if (!aw_chrono_string_stats (c, &st))
+    /* translators: a chrono string that has no usable shots, %s is the BB mass */
+    return g_strdup_printf (_ ("%s: no usable shots"), mass);
+  {
+    g_autofree char *mean = aw_format_number (st.mean_mps * k, 1);
+    g_autofree char *sd = aw_format_number (st.sd_mps * k, 2);
+    g_autofree char *es = aw_format_number (st.es_mps * k, 1);
+    g_autofree char *energy = aw_qty_format (AW_QTY_ENERGY, self->units, st.energy_mean_j);
+    g_autofree char *other = NULL;
+    gboolean differs = (self->units == AW_UNITS_IMPERIAL) != fps;
+
+    if (differs)
+      {
+        g_autofree char *o = aw_qty_format (AW_QTY_VELOCITY, self->units, st.mean_mps);
+        other = g_strdup_printf (" (%s)", o);
+      }
+    /* translators: one chrono string: BB mass, hop state, shots; then mean velocity with its
+     * unit, the mean in the window's unit when it differs, mean energy, SD and ES */
+    return g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                         "%s · %s · %u shot\nmean %s %s%s\n≈ %s · SD %s · ES %s %s",
+                                         "%s · %s · %u shots\nmean %s %s%s\n≈ %s · SD %s · ES %s %s",
+                                         st.n),
+                            mass, hop, st.n, mean, sym, other ? other : "", energy, sd, es, sym);
+  }
+}
+
+static void
+rebuild_lists (AwSetupEditor *self,
+               const AwSetup *s)
+{
+  GString *all = g_string_new (NULL);
+  g_autoptr (GPtrArray) texts = g_ptr_array_new_with_free_func (g_free);
+  gboolean can_delete_point = s->replica.energy_model != AW_POWER_MEASURED
+                              || s->replica.points->len > 1;
+
+  /* chrono strings */
+  for (guint i = 0; i < s->chrono->len; i++)
+    {
+      char *t = chrono_row_text (self, g_ptr_array_index (s->chrono, i));
+      g_string_append (all, t);
+      g_string_append_c (all, '\x1f');
+      g_ptr_array_add (texts, t);
+    }
+  if (g_strcmp0 (all->str, self->chrono_shown) != 0)
+    {
+      list_clear (self->chrono_list);
+      for (guint i = 0; i < texts->len; i++)
+        list_add_row (self->chrono_list, texts->pdata[i],
+                      icon_button ("document-edit-symbolic", _ ("Edit chrono string"), i,
+                                   G_CALLBACK (chrono_edit_cb), self),
+                      icon_button ("user-trash-symbolic", _ ("Delete chrono string"), i,
+                                   G_CALLBACK (chrono_delete_cb), self));
+      gtk_widget_set_visible (GTK_WIDGET (self->chrono_list), texts->len > 0);
+      g_free (self->chrono_shown);
+      self->chrono_shown = g_strdup (all->str);
+    }
+
+  /* measured points */
+  g_string_truncate (all, 0);
+  g_ptr_array_set_size (texts, 0);
+  g_string_append_c (all, can_delete_point ? 'd' : '-');
+  for (guint i = 0; i < s->replica.points->len; i++)
+    {
+      const AwReplicaPoint *pt = &g_array_index (s->replica.points, AwReplicaPoint, i);
+      g_autofree char *m = aw_qty_format (AW_QTY_MASS_G, self->units, pt->mass_g);
+      g_autofree char *v = aw_qty_format (AW_QTY_VELOCITY, self->units, pt->velocity_mps);
+      g_autofree char *e = aw_qty_format (AW_QTY_ENERGY, self->units,
+                                          0.5 * pt->mass_g * 1e-3 * pt->velocity_mps
+                                          * pt->velocity_mps);
+      char *t = g_strdup_printf ("%s → %s (%s)", m, v, e);
+      g_string_append (all, t);
+      g_string_append_c (all, '\x1f');
+      g_ptr_array_add (texts, t);
+    }
+  if (g_strcmp0 (all->str, self->points_shown) != 0)
+    {
+      list_clear (self->points_list);
+      for (guint i = 0; i < texts->len; i++)
+        {
+          GtkWidget *del = icon_button ("user-trash-symbolic", _ ("Delete measured point"), i,
+                                        G_CALLBACK (point_delete_cb), self);
+          gtk_widget_set_sensitive (del, can_delete_point);
+          if (!can_delete_point)
+            gtk_widget_set_tooltip_text (del, _ ("The measured model needs one point at least."));
+          list_add_row (self->points_list, texts->pdata[i],
+                        icon_button ("document-edit-symbolic", _ ("Edit measured point"), i,
+                                     G_CALLBACK (point_edit_cb), self),
+                        del);
+        }
+      g_free (self->points_shown);
+      self->points_shown = g_strdup (all->str);
+    }
+  gtk_widget_set_sensitive (self->add_point_button, s->replica.points->len < 100);
+  g_string_free (all, TRUE);
+}
+
+static GtkListBox *
+build_one_list (AwSetupEditor *self,
+                GtkBox        *box,
+                const char    *heading,
+                const char    *add_label,
+                GCallback      add_cb,
+                GtkWidget    **add_button)
+{
+  GtkWidget *top = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+  GtkWidget *label = gtk_label_new (heading);
+  GtkWidget *add = gtk_button_new_with_mnemonic (add_label);
+  GtkWidget *list = gtk_list_box_new ();
+
+  gtk_label_set_xalign (GTK_LABEL (label), 0);
+  gtk_label_set_wrap (GTK_LABEL (label), TRUE);
+  gtk_widget_set_hexpand (label, TRUE);
+  gtk_widget_add_css_class (label, "dim-label");
+  gtk_widget_add_css_class (add, "flat");
+  gtk_widget_set_valign (add, GTK_ALIGN_CENTER);
+  g_signal_connect_swapped (add, "clicked", add_cb, self);
+  gtk_box_append (GTK_BOX (top), label);
+  gtk_box_append (GTK_BOX (top), add);
+  gtk_box_append (box, top);
+
+  gtk_list_box_set_selection_mode (GTK_LIST_BOX (list), GTK_SELECTION_NONE);
+  gtk_list_box_set_activate_on_single_click (GTK_LIST_BOX (list), FALSE);
+  gtk_widget_add_css_class (list, "frame");
+  gtk_accessible_update_property (GTK_ACCESSIBLE (list), GTK_ACCESSIBLE_PROPERTY_LABEL, heading,
+                                  -1);
+  g_signal_connect (list, "row-activated", G_CALLBACK (row_activated_cb), self);
+  gtk_box_append (box, list);
+  if (add_button)
+    *add_button = add;
+  return GTK_LIST_BOX (list);
+}
+
+static void
+build_list_boxes (AwSetupEditor *self)
+{
+  self->points_list = build_one_list (self, self->points_box, _ ("Measured with each BB"),
+                                      _ ("Add _Point…"), G_CALLBACK (add_point_cb),
+                                      &self->add_point_button);
+  self->chrono_list = build_one_list (self, self->chrono_box, _ ("Chrono strings"),
+                                      _ ("Add _String…"), G_CALLBACK (add_chrono_cb), NULL);
+  gtk_widget_set_margin_top (GTK_WIDGET (self->chrono_box), 4);
+}
+
 /* ---- class ---- */
 
 static void
@@ -809,6 +1111,8 @@ aw_setup_editor_dispose (GObject *object)
     g_signal_handlers_disconnect_by_data (self->document, self);
   g_clear_object (&self->document);
   g_clear_pointer (&self->result, aw_compute_result_unref);
+  g_clear_pointer (&self->points_shown, g_free);
+  g_clear_pointer (&self->chrono_shown, g_free);
   gtk_widget_dispose_template (GTK_WIDGET (self), AW_TYPE_SETUP_EDITOR);
   {
     GtkWidget *child;
@@ -842,8 +1146,8 @@ aw_setup_editor_class_init (AwSetupEditorClass *klass)
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, type_entry);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, power_dropdown);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, energy_model_dropdown);
-  gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, points_label);
-  gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, chrono_label);
+  gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, points_box);
+  gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, chrono_box);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, hop_dropdown);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, hop_used_value);
   gtk_widget_class_bind_template_child (widget_class, AwSetupEditor, spin_value);
@@ -914,6 +1218,7 @@ aw_setup_editor_init (AwSetupEditor *self)
                         "of 1 use the models as published; a field fit adjusts them."));
   gtk_accessible_update_property (GTK_ACCESSIBLE (self->colour_button),
                                   GTK_ACCESSIBLE_PROPERTY_LABEL, _ ("Setup colour"), -1);
+  build_list_boxes (self);
   gtk_widget_set_sensitive (self->scroller, FALSE);
 }
 

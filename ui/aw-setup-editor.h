@@ -31,6 +31,14 @@ void aw_setup_editor_set_units (AwSetupEditor *self, AwUnitSystem units);
 void aw_setup_editor_set_result (AwSetupEditor *self, AwComputeResult *result);
 void aw_setup_editor_focus_name (AwSetupEditor *self);
 
+/* Opens the dialog editing chrono string / measured point `item` of the shown setup (−1: a new
+ * one); returns it (NULL when no setup is shown). */
+GtkWindow *aw_setup_editor_open_chrono (AwSetupEditor *self, int item);
+GtkWindow *aw_setup_editor_open_point (AwSetupEditor *self, int item);
+/* Deletes one as an undoable edit (the last point of the measured model stays). */
+void aw_setup_editor_delete_chrono (AwSetupEditor *self, int item);
+void aw_setup_editor_delete_point (AwSetupEditor *self, int item);
+
 /* A control by its id in the template (e.g. "mass_field", "hop_dropdown"), for tests. */
 GtkWidget *aw_setup_editor_get_field (AwSetupEditor *self, const char *id);
 
