@@ -858,7 +858,8 @@ parse_replica (Ctx *ctx, JsonObject *o, const char *path, AwReplica *r)
   r->extra = collect_extra (o, replica_known);
 }
 
-static AwChronoString *
+/* returns an AwChronoString (gpointer: a ParseItemFunc for read_list) */
+static gpointer
 parse_chrono (Ctx *ctx, JsonNode *node, const char *path)
 {
   if (!JSON_NODE_HOLDS_OBJECT (node))
@@ -944,7 +945,8 @@ parse_chrono (Ctx *ctx, JsonNode *node, const char *path)
   return c;
 }
 
-static AwObservation *
+/* returns an AwObservation (gpointer: a ParseItemFunc for read_list) */
+static gpointer
 parse_observation (Ctx *ctx, JsonNode *node, const char *path)
 {
   if (!JSON_NODE_HOLDS_OBJECT (node))
@@ -974,6 +976,29 @@ parse_observation (Ctx *ctx, JsonNode *node, const char *path)
   read_string (ctx, o, path, "note", OPTIONAL, MAX_TEXT_CHARS, FALSE, &ob->note);
   ob->extra = collect_extra (o, observation_known);
   return ob;
+}
+
+/* Parses every element of the optional array member `key` with parse_item and appends the ones
+ * that parse to list; the others are reported by parse_item under "path.key[i]". */
+typedef gpointer (*ParseItemFunc) (Ctx *ctx, JsonNode *node, const char *path);
+
+static void
+read_list (Ctx *ctx, JsonObject *o, const char *path, const char *key, ParseItemFunc parse_item,
+           GPtrArray *list)
+{
+  JsonArray *a = read_array (ctx, o, path, key, OPTIONAL);
+  if (a == NULL)
+    return;
+  char *lp = path_member (path, key);
+  for (guint i = 0; i < json_array_get_length (a); i++)
+    {
+      char *ip = path_index (lp, i);
+      gpointer item = parse_item (ctx, json_array_get_element (a, i), ip);
+      if (item != NULL)
+        g_ptr_array_add (list, item);
+      g_free (ip);
+    }
+  g_free (lp);
 }
 
 static AwSetup *
@@ -1095,35 +1120,8 @@ parse_setup (Ctx *ctx, JsonNode *node, const char *path)
       g_free (cp);
     }
 
-  JsonArray *ch = read_array (ctx, o, path, "chrono", OPTIONAL);
-  if (ch != NULL)
-    {
-      char *cp = path_member (path, "chrono");
-      for (guint i = 0; i < json_array_get_length (ch); i++)
-        {
-          char *ip = path_index (cp, i);
-          AwChronoString *c = parse_chrono (ctx, json_array_get_element (ch, i), ip);
-          if (c != NULL)
-            g_ptr_array_add (s->chrono, c);
-          g_free (ip);
-        }
-      g_free (cp);
-    }
-
-  JsonArray *obs = read_array (ctx, o, path, "observations", OPTIONAL);
-  if (obs != NULL)
-    {
-      char *op = path_member (path, "observations");
-      for (guint i = 0; i < json_array_get_length (obs); i++)
-        {
-          char *ip = path_index (op, i);
-          AwObservation *ob = parse_observation (ctx, json_array_get_element (obs, i), ip);
-          if (ob != NULL)
-            g_ptr_array_add (s->observations, ob);
-          g_free (ip);
-        }
-      g_free (op);
-    }
+  read_list (ctx, o, path, "chrono", parse_chrono, s->chrono);
+  read_list (ctx, o, path, "observations", parse_observation, s->observations);
 
   s->extra = collect_extra (o, setup_known);
   return s;
