@@ -79,6 +79,12 @@ char *aw_print_job_date_text (AwPrintJob *job);
 /* Footer text "Arcwright · KIND · date". */
 char *aw_print_job_footer_text (AwPrintJob *job);
 
+/* A sheet laid out as a flow of blocks (setup and loadout sheets): paginates inside the margins
+ * above the footer band, and draws one page with its footer. */
+int aw_print_flow_paginate (AwPlFlowDoc *flow, AwPl *pl, double w, double h);
+void aw_print_flow_draw_page (AwPrintJob *job, AwPlFlowDoc *flow, AwPl *pl, int page, double w,
+                              double h);
+
 /* The short caution every output carries (translated). */
 const char *aw_print_caution_short (void);
 /* The longer safety text of sheets (translated, several sentences). */

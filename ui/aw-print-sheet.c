@@ -1040,18 +1040,11 @@ sheet_doc (AwPrintJob *job)
 int
 aw_print_sheet_paginate (AwPrintJob *job, AwPl *pl, double w, double h)
 {
-  SheetDoc *d = sheet_doc (job);
-  double m = AW_PRINT_MARGIN_PT;
-  return aw_pl_flow_paginate (&d->flow, pl, w - 2 * m, h - 2 * m - 14.0);
+  return aw_print_flow_paginate (&sheet_doc (job)->flow, pl, w, h);
 }
 
 void
 aw_print_sheet_draw_page (AwPrintJob *job, AwPl *pl, int page, double w, double h)
 {
-  SheetDoc *d = sheet_doc (job);
-  double m = AW_PRINT_MARGIN_PT;
-  g_autofree char *foot = aw_print_job_footer_text (job);
-
-  aw_pl_flow_draw_page (&d->flow, pl, page, m, m, w - 2 * m);
-  aw_pl_footer (pl, m, h - m - 6.0, w - 2 * m, foot, page, job->n_pages, AW_PRINT_FOOTER_SIZE);
+  aw_print_flow_draw_page (job, &sheet_doc (job)->flow, pl, page, w, h);
 }

@@ -423,6 +423,27 @@ aw_print_job_footer_text (AwPrintJob *job)
   return g_strdup_printf ("Arcwright · %s · %s", kind, date);
 }
 
+/* the band kept free for the footer at the bottom of a sheet, pt */
+#define FLOW_FOOTER_BAND 14.0
+
+int
+aw_print_flow_paginate (AwPlFlowDoc *flow, AwPl *pl, double w, double h)
+{
+  double m = AW_PRINT_MARGIN_PT;
+  return aw_pl_flow_paginate (flow, pl, w - 2 * m, h - 2 * m - FLOW_FOOTER_BAND);
+}
+
+void
+aw_print_flow_draw_page (AwPrintJob *job, AwPlFlowDoc *flow, AwPl *pl, int page, double w,
+                         double h)
+{
+  double m = AW_PRINT_MARGIN_PT;
+  g_autofree char *foot = aw_print_job_footer_text (job);
+
+  aw_pl_flow_draw_page (flow, pl, page, m, m, w - 2 * m);
+  aw_pl_footer (pl, m, h - m - 6.0, w - 2 * m, foot, page, job->n_pages, AW_PRINT_FOOTER_SIZE);
+}
+
 /* ---- texts shared by the kinds ---- */
 
 const char *
